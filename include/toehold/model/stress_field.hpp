@@ -1,0 +1,54 @@
+// A stress field of one load step on a mesh: one symmetric tensor per point or per cell, in MPa, internal
+// Voigt order (xx, yy, zz, xy, yz, xz), tension positive. Read from one 6- or 9-component array or from six
+// scalar arrays, converted from the declared stress unit once.
+#pragma once
+
+#include "toehold/common/tensor.hpp"
+#include "toehold/common/units.hpp"
+#include "toehold/model/mesh.hpp"
+
+#include <array>
+#include <string>
+#include <vector>
+
+namespace toehold {
+
+enum class Association {
+  point,  // one tensor per mesh point (nodal values)
+  cell,   // one tensor per cell (constant over the cell)
+};
+
+// Where a step's stress lives in a file. Either `array` (6 or 9 components) or all six `component_arrays`
+// (scalar arrays for xx, yy, zz, xy, yz, xz, in that order) are set.
+struct StressSpec {
+  std::string array;                         // name of a 6- or 9-component point or cell array
+  std::array<std::string, 6> component_arrays;  // six scalar arrays, internal order; empty when `array` is used
+  std::string order;                         // declared component order of a 6-component array, "" if none
+};
+
+class StressField {
+public:
+  StressField() = default;
+  StressField(Association where, std::vector<double> voigt) : where_(where), voigt_(std::move(voigt)) {}
+
+  Association where() const { return where_; }
+  // Number of points (or cells) with a tensor.
+  std::size_t size() const { return voigt_.size() / 6; }
+  // Six values of entity i in internal Voigt order, MPa.
+  const double* voigt(std::size_t i) const { return voigt_.data() + 6 * i; }
+  Tensor tensor(std::size_t i) const { return tensor_from_voigt(voigt(i)); }
+  const std::vector<double>& values() const { return voigt_; }
+
+private:
+  Association where_ = Association::point;
+  std::vector<double> voigt_;
+};
+
+// Reads the stress `spec` names from `mesh` as point or cell data (whichever holds it), converts `unit` to MPa.
+// A 9-component array is taken as a full tensor (row-major; symmetric part used). A 6-component array takes its
+// order from `spec.order`, else from its component names, else throws Error saying how to declare the order.
+// Throws Error naming file and array for a missing array, a wrong component count, or NaN/Inf values (naming
+// the first point or cell id).
+StressField read_stress(const Mesh& mesh, const StressSpec& spec, StressUnit unit);
+
+}  // namespace toehold

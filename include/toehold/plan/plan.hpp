@@ -1,0 +1,102 @@
+// An assessment plan: everything one run of toehold needs, as read from a TOML file (docs/plan.md documents every
+// key). All lengths here are already in mm and all stresses in MPa; paths are resolved against the plan's folder.
+#pragma once
+
+#include "toehold/common/tensor.hpp"
+#include "toehold/common/units.hpp"
+#include "toehold/model/stress_field.hpp"
+#include "toehold/readout/scheme.hpp"
+
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace toehold {
+
+// The FE model: geometry file, units, and the stress array the load steps use unless they say otherwise.
+struct ModelPlan {
+  std::string file;               // resolved path of a .vtu, .pvtu, .vtk or .pvd
+  LengthUnit length_unit = LengthUnit::mm;
+  StressUnit stress_unit = StressUnit::MPa;
+  StressSpec stress;              // default stress array(s) and declared component order
+  std::string region_array;       // cell-data integer array that tells weld cells apart; "" when none
+};
+
+// One load step (or unit load case): a file, or a time step of the model's .pvd, and its stress array.
+struct StepPlan {
+  std::string name;   // as the analyst calls it, e.g. "hoist loaded"
+  std::string file;   // resolved path; the model file when the plan gives none
+  int step = -1;      // 0-based .pvd time step; -1 when the file is not a .pvd or has exactly one step
+  StressSpec stress;  // the model's stress spec unless the step names its own
+};
+
+// How the load steps make the loading.
+enum class LoadingKind {
+  range,       // the largest range between any two steps, applied `cycles` times (constant amplitude)
+  series,      // the steps in order are one stress history; rainflow-counted, repeated `repeats` times
+  unit_cases,  // the steps are unit load cases scaled by the columns of a history table and summed
+};
+
+struct LoadingPlan {
+  LoadingKind kind = LoadingKind::range;
+  std::string history_file;            // unit_cases: CSV with one column per step (named as the steps)
+  bool repeating_history = false;      // series/unit_cases: ASTM E1049 sec. 5.4.5 instead of 5.4.4 (half cycles)
+  double repeats_per_year = 0.0;       // series/unit_cases: repeats of the history per year; 0 = no life in years
+};
+
+// Where a toe is and how it is assessed.
+struct ToePlan {
+  std::string name;                     // shown in every output; unique in the plan
+  int line = 0;                         // line of the [[toe]] table in the plan, for messages
+  // Where: a point-data marker (the nodes with marker_value) or coordinates (mm) snapped onto the surface.
+  std::string marker_array;             // "" when points are given
+  int marker_value = 0;
+  std::vector<Vec3> points;             // mm, in order along the toe; empty when a marker is used
+  bool closed = false;                  // points form a loop
+  // Weld side: region values of weld cells (in the model's region array) and/or a point inside the weld.
+  std::vector<int> weld_regions;
+  std::optional<Vec3> weld_point;       // mm
+  double thickness = 0.0;               // plate thickness t, mm (> 0)
+  double spacing = 0.0;                 // mm between stations; 0 = a station at every toe node or point
+  HotSpotType type = HotSpotType::a;
+  SchemeKind scheme = SchemeKind::fine_linear;
+  std::vector<double> user_distances;   // mm, for SchemeKind::user
+  double user_factor = 1.0;             // SchemeKind::user: multiplies the extrapolated value
+  std::string definition = "perpendicular";  // hot-spot stress definition name (see docs/plan.md)
+  std::string detail_class;             // DNV detail class for the effective hot-spot stress factor, "" if none
+  std::string curve;                    // S-N curve name from the catalogue, e.g. "IIW FAT 100"
+  std::optional<double> thickness_exponent;  // IIW thickness correction exponent n; none = no correction
+};
+
+// What the joint must achieve.
+struct RequirementPlan {
+  double cycles = 0.0;        // required cycles of the range (LoadingKind::range), > 0
+  double gamma_M = 1.0;       // partial safety factor on fatigue resistance (divides the allowable range)
+  double gamma_F = 1.0;       // partial safety factor on the load (multiplies the stress range)
+  double damage_limit = 1.0;  // allowable Miner sum (series and unit_cases)
+  double design_life_years = 0.0;  // series/unit_cases with repeats_per_year: required life; 0 = none
+};
+
+struct Plan {
+  std::string path;                // the plan file as given
+  std::string text;                // its text, verbatim (for provenance)
+  std::string title;
+  ModelPlan model;
+  std::vector<StepPlan> steps;
+  LoadingPlan loading;
+  std::vector<ToePlan> toes;
+  RequirementPlan requirement;
+  std::string output_folder;       // resolved; the command line may override it
+  std::vector<std::string> defaults_applied;  // "toe 'north': spacing = 0 (a station at every toe node)", ...
+};
+
+// Reads and checks a plan. Throws Error naming the file, line and key for syntax errors, unknown keys, wrong
+// types, missing required keys and values out of range.
+Plan read_plan(const std::string& path);
+
+// The same from text; `path` is used for messages and to resolve relative file names.
+Plan parse_plan(const std::string& text, const std::string& path);
+
+std::string to_string(LoadingKind kind);
+
+}  // namespace toehold

@@ -1,0 +1,91 @@
+// Per-station evaluation: hot-spot stress per step from the located read-out points, the range, and the check
+// against the toe's S-N curve.
+#include "internal.hpp"
+
+#include "toehold/common/error.hpp"
+#include "toehold/fatigue/corrections.hpp"
+#include "toehold/fatigue/sn_catalogue.hpp"
+#include "toehold/hotspot/definition.hpp"
+
+#include <cmath>
+#include <limits>
+#include <sstream>
+
+namespace toehold::detail {
+
+// The extrapolated stress tensor at the toe for one step: sum of scheme weights times the read-out tensors.
+Tensor toe_tensor(const PlacedStation& s, const ReadoutScheme& scheme, const StressField& field) {
+  Tensor t = Tensor::Zero();
+  for (std::size_t k = 0; k < s.hosts.size(); ++k) t += scheme.weights[k] * interpolate(field, s.hosts[k]);
+  return t;
+}
+
+void record_step(PlacedStation& s, const ReadoutScheme& scheme, const StressField& field,
+                 std::vector<Tensor>& tensors) {
+  if (!s.result.ok()) return;
+  const Vec3& n = s.result.station.frame.readout;
+  for (std::size_t k = 0; k < s.hosts.size(); ++k)
+    s.result.points[k].normal_stress.push_back(normal_stress(interpolate(field, s.hosts[k]), n));
+  tensors.push_back(toe_tensor(s, scheme, field));
+}
+
+DefinitionOptions definition_options(const ToePlan& toe) {
+  DefinitionOptions options;
+  if (!toe.detail_class.empty())
+    options.alpha = effective_alpha(toe.detail_class, "toe '" + toe.name + "' key detail_class");
+  return options;
+}
+
+// Hot-spot values per step and the largest range over all pairs of steps.
+void evaluate_range(StationResult& r, const std::vector<Tensor>& tensors, HotSpotDefinition definition,
+                    const DefinitionOptions& options) {
+  const ToeFrame& frame = r.station.frame;
+  for (const Tensor& t : tensors) r.hot_spot.push_back(evaluate(definition, t, frame, options).value);
+  bool any = false;
+  std::string why;
+  for (std::size_t i = 0; i < tensors.size(); ++i)
+    for (std::size_t j = i + 1; j < tensors.size(); ++j) {
+      const HotSpotRange range = evaluate_range(definition, tensors[i], tensors[j], frame, options);
+      if (!range.range.valid) {
+        why = range.range.note;
+        continue;
+      }
+      if (!any || std::abs(range.range.value) > r.range) {
+        any = true;
+        r.range = std::abs(range.range.value);
+        r.range_from = static_cast<int>(i);
+        r.range_to = static_cast<int>(j);
+        r.range_angle_deg = range.range.angle_deg;
+        if (!range.range.note.empty()) r.notes = {range.range.note};
+      }
+    }
+  if (!any) r.problem = tensors.size() < 2 ? "fewer than two load steps" : "no valid range: " + why;
+}
+
+SnCurve toe_curve(const ToePlan& toe, double& thickness_factor) {
+  SnCurve curve = parse_sn_curve(toe.curve);
+  thickness_factor = 1.0;
+  if (toe.thickness_exponent) {
+    thickness_factor = iiw_thickness_factor(toe.thickness, *toe.thickness_exponent);
+  } else if (curve.thickness()) {
+    thickness_factor = 1.0 / dnv_thickness_factor(toe.thickness, curve.thickness()->reference_mm,
+                                                  curve.thickness()->exponent);
+  }
+  if (thickness_factor != 1.0) {
+    std::ostringstream os;
+    os.precision(4);
+    os << "thickness factor " << thickness_factor << " for t = " << toe.thickness << " mm";
+    curve = curve.scaled(thickness_factor, os.str());
+  }
+  return curve;
+}
+
+void check_range(StationResult& r, const SnCurve& curve, const RequirementPlan& req) {
+  if (!r.ok()) return;
+  r.allowable = curve.allowable_range(req.cycles, Amplitude::constant) / req.gamma_M;
+  const double design_range = req.gamma_F * r.range;
+  r.utilization = r.allowable > 0 ? design_range / r.allowable : std::numeric_limits<double>::infinity();
+  r.life = curve.cycles_to_failure(design_range * req.gamma_M, Amplitude::constant);
+}
+
+}  // namespace toehold::detail

@@ -1,0 +1,76 @@
+// Pieces of the assessment shared by its source files (private to src/assess).
+#pragma once
+
+#include "toehold/assess/assessment.hpp"
+#include "toehold/fatigue/sn_curve.hpp"
+#include "toehold/hotspot/definition.hpp"
+#include "toehold/model/locator.hpp"
+#include "toehold/model/mesh.hpp"
+#include "toehold/model/stress_field.hpp"
+#include "toehold/model/surface.hpp"
+#include "toehold/toe/weld_side.hpp"
+
+#include <map>
+#include <memory>
+#include <utility>
+
+namespace toehold::detail {
+
+// A station with its read-out points located: the hosts (cells and weights) are reused for every load step.
+struct PlacedStation {
+  StationResult result;
+  std::vector<Host> hosts;  // one per result.points entry
+};
+
+struct PlacedToe {
+  ToeResult result;              // stations left empty; filled from `stations` at the end
+  std::vector<PlacedStation> stations;
+};
+
+// The geometry every toe is built on.
+struct ModelGeometry {
+  Mesh mesh;
+  Surface surface;
+  Locator locator;
+  std::vector<int> cell_region;  // empty when the plan names no region array
+  explicit ModelGeometry(Mesh m);
+};
+
+std::vector<int> read_cell_region(const Mesh& mesh, const std::string& array);
+
+// Builds the toe line, stations and read-out points of one toe (no stresses yet).
+PlacedToe place_toe(const ModelGeometry& geometry, const ToePlan& toe, const std::string& region_array,
+                    Reporter& reporter);
+
+// Reads the load steps' stress fields one by one, reusing meshes already read, and hands each to `use`.
+class StepReader {
+public:
+  StepReader(const Plan& plan, const Mesh& geometry, Reporter& reporter);
+  StressField read(std::size_t step);
+  const std::vector<std::string>& files() const { return files_; }
+
+private:
+  const Mesh& mesh_for(const StepPlan& step);
+  const Plan& plan_;
+  const Mesh& geometry_;
+  Reporter& reporter_;
+  std::map<std::pair<std::string, int>, Mesh> meshes_;
+  std::vector<std::string> files_;
+};
+
+// Per-station evaluation (evaluate.cpp).
+Tensor toe_tensor(const PlacedStation& s, const ReadoutScheme& scheme, const StressField& field);
+// Appends the step's read-out normal stresses and toe tensor of a station that has a result.
+void record_step(PlacedStation& s, const ReadoutScheme& scheme, const StressField& field,
+                 std::vector<Tensor>& tensors);
+DefinitionOptions definition_options(const ToePlan& toe);
+void evaluate_range(StationResult& r, const std::vector<Tensor>& tensors, HotSpotDefinition definition,
+                    const DefinitionOptions& options);
+// The toe's S-N curve with its thickness correction; thickness_factor receives the factor applied.
+SnCurve toe_curve(const ToePlan& toe, double& thickness_factor);
+void check_range(StationResult& r, const SnCurve& curve, const RequirementPlan& req);
+
+// The (file, step) of the mesh that serves as geometry: the first load step's.
+std::pair<std::string, int> geometry_source(const Plan& plan);
+
+}  // namespace toehold::detail

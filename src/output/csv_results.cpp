@@ -1,0 +1,108 @@
+// stations.csv: one row per station with position, hot-spot stresses, range, allowable range, utilization, life
+// and status. RFC 4180: comma separated, CRLF line ends, fields with commas, quotes or line breaks in quotes.
+// Numbers are written in the shortest form that reads back to the same double; empty where there is no result.
+#include "result_files.hpp"
+
+#include "toehold/common/error.hpp"
+
+#include <charconv>
+#include <fstream>
+#include <system_error>
+
+namespace toehold::detail {
+namespace {
+
+std::string quoted(const std::string& field) {
+  if (field.find_first_of(",\"\r\n") == std::string::npos) return field;
+  std::string out = "\"";
+  for (char ch : field) out += ch == '"' ? std::string("\"\"") : std::string(1, ch);
+  return out + "\"";
+}
+
+// Shortest decimal text that parses back to exactly `v` ("inf" for infinity).
+std::string number(double v) {
+  char buffer[64];
+  const auto [end, ec] = std::to_chars(buffer, buffer + sizeof buffer, v);
+  return ec == std::errc() ? std::string(buffer, end) : std::string("nan");
+}
+
+class Row {
+public:
+  Row& text(const std::string& s) { return add(quoted(s)); }
+  Row& num(double v) { return add(number(v)); }
+  Row& integer(long long v) { return add(std::to_string(v)); }
+  Row& empty() { return add(""); }
+  const std::string& line() const { return line_; }
+
+private:
+  Row& add(const std::string& field) {
+    if (!first_) line_ += ',';
+    line_ += field;
+    first_ = false;
+    return *this;
+  }
+  std::string line_;
+  bool first_ = true;
+};
+
+Row header(const OutputContext& c) {
+  Row r;
+  r.text("toe").text("toe name").text(kStationId);
+  r.text(c.length_name("x")).text(c.length_name("y")).text(c.length_name("z")).text(c.length_name("arc length"));
+  for (const auto& step : c.a->steps) r.text(hot_spot_name(step));
+  r.text("hot-spot stress range [MPa]").text("range between steps").text("allowable stress range [MPa]");
+  r.text(kUtilization).text("life [cycles]").text("status").text("S-N curve");
+  return r;
+}
+
+// "<step a> to <step b>", or "" when the range's steps are not known.
+std::string range_steps(const Assessment& a, const StationResult& s) {
+  const auto n = static_cast<int>(a.steps.size());
+  if (s.range_from < 0 || s.range_to < 0 || s.range_from >= n || s.range_to >= n) return "";
+  return a.steps[static_cast<std::size_t>(s.range_from)] + " to " + a.steps[static_cast<std::size_t>(s.range_to)];
+}
+
+void result_fields(const OutputContext& c, const StationResult& s, Row& r) {
+  const std::size_t steps = c.a->steps.size();
+  if (!s.ok()) {
+    for (std::size_t k = 0; k < steps + 5; ++k) r.empty();
+    return;
+  }
+  for (std::size_t k = 0; k < steps; ++k) {
+    if (k < s.hot_spot.size())
+      r.num(s.hot_spot[k]);
+    else
+      r.empty();
+  }
+  r.num(s.range).text(range_steps(*c.a, s)).num(s.allowable).num(s.utilization).num(s.life);
+}
+
+Row station_row(const OutputContext& c, int toe_number, const ToeResult& toe, const StationResult& s) {
+  Row r;
+  r.integer(toe_number).text(toe.plan.name).integer(s.station.id);
+  r.num(c.length(s.station.x.x())).num(c.length(s.station.x.y())).num(c.length(s.station.x.z()));
+  r.num(c.length(s.station.arc));
+  result_fields(c, s, r);
+  r.text(station_status(s)).text(toe.curve);
+  return r;
+}
+
+}  // namespace
+
+std::string station_status(const StationResult& s) {
+  if (!s.ok()) return "no result: " + s.problem;
+  return s.exceeds() ? "exceeds" : "ok";
+}
+
+void write_stations_csv(const OutputContext& c, const std::string& path) {
+  std::ofstream out(path, std::ios::binary);
+  if (!out) throw Error("cannot write result file '" + path + "'; check that the output folder is writable");
+  out << header(c).line() << "\r\n";
+  for (std::size_t t = 0; t < c.a->toes.size(); ++t)
+    for (const auto& s : c.a->toes[t].stations)
+      out << station_row(c, static_cast<int>(t + 1), c.a->toes[t], s).line() << "\r\n";
+  out.close();
+  if (!out) throw Error("cannot write result file '" + path + "'; check that the disk has space");
+}
+
+}  // namespace toehold::detail

@@ -1,0 +1,98 @@
+#include "toehold/output/summary.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <sstream>
+
+namespace toehold {
+
+const char* const kCaution =
+    "CAUTION: toehold is a screening and documentation aid. Its results must be checked by a qualified engineer "
+    "under the governing code and local regulations before they are relied on.";
+
+namespace {
+
+std::string fixed(double value, int decimals) {
+  if (std::isinf(value)) return "no damage";
+  char buffer[64];
+  std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
+  return buffer;
+}
+
+std::string cycles(double value) {
+  if (std::isinf(value)) return "no damage";
+  char buffer[64];
+  std::snprintf(buffer, sizeof buffer, "%.3g", value);
+  return buffer;
+}
+
+std::string pad(const std::string& text, std::size_t width, bool right = false) {
+  if (text.size() >= width) return text;
+  const std::string fill(width - text.size(), ' ');
+  return right ? fill + text : text + fill;
+}
+
+std::string position(const Vec3& x_mm, LengthUnit unit) {
+  const double f = 1.0 / mm_per(unit);
+  char buffer[128];
+  std::snprintf(buffer, sizeof buffer, "(%.1f, %.1f, %.1f)", x_mm.x() * f, x_mm.y() * f, x_mm.z() * f);
+  return buffer;
+}
+
+std::string table(const Assessment& a) {
+  const std::string unit = to_string(a.plan.model.length_unit);
+  std::ostringstream os;
+  os << pad("toe", 16) << pad("stations", 9, true) << pad("worst", 7, true) << "  " << pad("at [" + unit + "]", 26)
+     << pad("range [MPa]", 12, true) << pad("allow. [MPa]", 13, true) << pad("util.", 8, true)
+     << pad("life [cycles]", 14, true) << "  status\n";
+  for (const ToeResult& t : a.toes) {
+    os << pad(t.plan.name, 16) << pad(std::to_string(t.stations.size()), 9, true);
+    if (t.worst < 0) {
+      os << pad("-", 7, true) << "  " << pad("-", 26) << pad("-", 12, true) << pad("-", 13, true) << pad("-", 8, true)
+         << pad("-", 14, true) << "  no result\n";
+      continue;
+    }
+    const StationResult& s = t.stations[static_cast<std::size_t>(t.worst)];
+    os << pad(std::to_string(s.station.id), 7, true) << "  " << pad(position(s.station.x, a.plan.model.length_unit), 26)
+       << pad(fixed(s.range, 1), 12, true) << pad(fixed(s.allowable, 1), 13, true)
+       << pad(fixed(s.utilization, 3), 8, true) << pad(cycles(s.life), 14, true) << "  "
+       << (s.exceeds() ? "EXCEEDS" : "passes") << "\n";
+  }
+  return os.str();
+}
+
+}  // namespace
+
+std::string format_assessment_summary(const Assessment& a, const std::string& output_folder,
+                                      const std::vector<std::string>& files) {
+  std::ostringstream os;
+  os << "toehold " << TOEHOLD_VERSION << " - " << (a.plan.title.empty() ? a.plan.path : a.plan.title) << "\n";
+  os << "model: " << a.model_points << " points, " << a.model_cells << " volume cells; units "
+     << to_string(a.plan.model.length_unit) << ", " << to_string(a.plan.model.stress_unit)
+     << " (results in MPa); " << a.steps.size() << " load steps\n";
+  os << "requirement: " << cycles(a.plan.requirement.cycles) << " cycles, gamma_M = " << a.plan.requirement.gamma_M
+     << ", gamma_F = " << a.plan.requirement.gamma_F << "\n";
+  for (const ToeResult& t : a.toes)
+    os << "  toe '" << t.plan.name << "': " << t.scheme.label << "; " << t.definition << " stress; "
+       << t.curve << " (" << t.curve_source << ")\n";
+  os << "\nWorst station of each toe:\n" << table(a) << "\n";
+  os << a.stations() << " stations: " << a.stations() - a.stations_without_result() - a.stations_exceeding()
+     << " pass, " << a.stations_exceeding() << " exceed, " << a.stations_without_result() << " without result\n";
+  if (!output_folder.empty()) {
+    os << "\nOutputs in " << output_folder << ":";
+    for (const auto& f : files) os << " " << f;
+    os << "\nOpen results.pvd there in ParaView (File > Open) to see the stations, read-out paths and model.\n";
+  }
+  if (!a.warnings.empty()) {
+    os << "\nWarnings (" << a.warnings.size() << "):\n";
+    const std::size_t shown = std::min<std::size_t>(a.warnings.size(), 25);
+    for (std::size_t i = 0; i < shown; ++i) os << "  - " << a.warnings[i] << "\n";
+    if (shown < a.warnings.size())
+      os << "  ... and " << a.warnings.size() - shown << " more (every station's status is in stations.csv)\n";
+  }
+  os << "\n" << kCaution << "\n";
+  return os.str();
+}
+
+}  // namespace toehold

@@ -1,0 +1,226 @@
+// stations.vtp (one point per station, a polyline per toe) and readout.vtp (the read-out points and each
+// station's walked read-out path), with the arrays docs/outputs.md lists. Lengths in the output unit, MPa.
+#include "result_files.hpp"
+
+#include <vtkCellArray.h>
+#include <vtkDoubleArray.h>
+#include <vtkIntArray.h>
+#include <vtkNew.h>
+#include <vtkPointData.h>
+#include <vtkPoints.h>
+#include <vtkPolyData.h>
+#include <vtkSmartPointer.h>
+#include <vtkXMLPolyDataWriter.h>
+
+#include <limits>
+#include <vector>
+
+namespace toehold::detail {
+namespace {
+
+constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
+
+vtkSmartPointer<vtkDoubleArray> doubles(vtkPolyData* data, const std::string& name, int components = 1) {
+  auto array = vtkSmartPointer<vtkDoubleArray>::New();
+  array->SetName(vtk_safe_name(name).c_str());
+  array->SetNumberOfComponents(components);
+  array->SetNumberOfTuples(data->GetNumberOfPoints());
+  array->Fill(kNaN);
+  data->GetPointData()->AddArray(array);
+  return array;
+}
+
+vtkSmartPointer<vtkIntArray> ints(vtkPolyData* data, const std::string& name) {
+  auto array = vtkSmartPointer<vtkIntArray>::New();
+  array->SetName(vtk_safe_name(name).c_str());
+  array->SetNumberOfTuples(data->GetNumberOfPoints());
+  array->Fill(0);
+  data->GetPointData()->AddArray(array);
+  return array;
+}
+
+void set_vector(vtkDoubleArray* array, vtkIdType row, const Vec3& v) {
+  for (int k = 0; k < 3; ++k) array->SetComponent(row, k, v[k]);
+}
+
+std::vector<std::string> toe_names(const Assessment& a) {
+  std::vector<std::string> names;
+  for (const auto& t : a.toes) names.push_back(t.plan.name);
+  return names;
+}
+
+// Field data every result polydata carries.
+void add_common_fields(const OutputContext& c, vtkPolyData* data) {
+  add_field_strings(data, kToeNames, toe_names(*c.a));
+  add_field_strings(data, kLoadSteps, c.a->steps);
+  add_field_strings(data, kProvenance, c.provenance);
+}
+
+vtkSmartPointer<vtkPoints> double_points() {
+  auto points = vtkSmartPointer<vtkPoints>::New();
+  points->SetDataTypeToDouble();
+  return points;
+}
+
+void insert_point(vtkPoints* points, const OutputContext& c, const Vec3& x_mm) {
+  points->InsertNextPoint(c.length(x_mm.x()), c.length(x_mm.y()), c.length(x_mm.z()));
+}
+
+// ---- stations.vtp ---------------------------------------------------------------------------------------------
+
+// The point arrays of stations.vtp, one row per station.
+struct StationArrays {
+  vtkSmartPointer<vtkIntArray> toe, id, exceeds, has_result;
+  vtkSmartPointer<vtkDoubleArray> arc, range, allowable, utilization, life, tangent, normal, readout;
+  std::vector<vtkSmartPointer<vtkDoubleArray>> hot_spot;  // one per load step
+
+  StationArrays(const OutputContext& c, vtkPolyData* data)
+      : toe(ints(data, kToeNumber)), id(ints(data, kStationId)), exceeds(ints(data, "exceeds allowable [1 = yes]")),
+        has_result(ints(data, "has result [1 = yes]")), arc(doubles(data, c.length_name("arc length"))),
+        range(doubles(data, "hot-spot stress range [MPa]")), allowable(doubles(data, "allowable stress range [MPa]")),
+        utilization(doubles(data, kUtilization)), life(doubles(data, "life [cycles]")),
+        tangent(doubles(data, "toe tangent [unit vector]", 3)), normal(doubles(data, "surface normal [unit vector]", 3)),
+        readout(doubles(data, "read-out direction [unit vector]", 3)) {
+    for (const auto& step : c.a->steps) hot_spot.push_back(doubles(data, hot_spot_name(step)));
+  }
+
+  void fill(vtkIdType row, int toe_number, const StationResult& s, const OutputContext& c) {
+    toe->SetValue(row, toe_number);
+    id->SetValue(row, s.station.id);
+    arc->SetValue(row, c.length(s.station.arc));
+    if (s.station.problem.empty()) {
+      set_vector(tangent, row, s.station.frame.tangent);
+      set_vector(normal, row, s.station.frame.normal);
+      set_vector(readout, row, s.station.frame.readout);
+    }
+    if (!s.ok()) return;
+    has_result->SetValue(row, 1);
+    exceeds->SetValue(row, s.exceeds() ? 1 : 0);
+    for (std::size_t k = 0; k < hot_spot.size() && k < s.hot_spot.size(); ++k) hot_spot[k]->SetValue(row, s.hot_spot[k]);
+    range->SetValue(row, s.range);
+    allowable->SetValue(row, s.allowable);
+    utilization->SetValue(row, s.utilization);
+    life->SetValue(row, s.life);
+  }
+};
+
+// One polyline per toe through its stations (closed loops repeat the first station) and a vertex per station.
+void add_station_cells(const Assessment& a, vtkPolyData* data) {
+  vtkNew<vtkCellArray> verts, lines;
+  vtkIdType next = 0;
+  for (const auto& toe : a.toes) {
+    const auto n = static_cast<vtkIdType>(toe.stations.size());
+    for (vtkIdType i = 0; i < n; ++i) verts->InsertNextCell({next + i});
+    if (n >= 2) {
+      std::vector<vtkIdType> ids;
+      for (vtkIdType i = 0; i < n; ++i) ids.push_back(next + i);
+      if (toe.line.closed && n >= 3) ids.push_back(next);
+      lines->InsertNextCell(static_cast<vtkIdType>(ids.size()), ids.data());
+    }
+    next += n;
+  }
+  data->SetVerts(verts);
+  data->SetLines(lines);
+}
+
+// ---- readout.vtp ----------------------------------------------------------------------------------------------
+
+struct ReadoutArrays {
+  vtkSmartPointer<vtkIntArray> toe, id, is_readout;
+  vtkSmartPointer<vtkDoubleArray> distance, outside;
+  std::vector<vtkSmartPointer<vtkDoubleArray>> stress;  // one per load step
+
+  ReadoutArrays(const OutputContext& c, vtkPolyData* data)
+      : toe(ints(data, kToeNumber)), id(ints(data, kStationId)), is_readout(ints(data, "read-out point [1 = yes]")),
+        distance(doubles(data, c.length_name("distance from toe"))),
+        outside(doubles(data, c.length_name("distance outside model"))) {
+    for (const auto& step : c.a->steps) stress.push_back(doubles(data, normal_stress_name(step)));
+  }
+
+  void label(vtkIdType row, int toe_number, int station_id, double distance_out) {
+    toe->SetValue(row, toe_number);
+    id->SetValue(row, station_id);
+    distance->SetValue(row, distance_out);
+  }
+
+  void fill_point(vtkIdType row, const ReadoutPoint& p, const OutputContext& c) {
+    is_readout->SetValue(row, 1);
+    outside->SetValue(row, c.length(p.off_model));
+    for (std::size_t k = 0; k < stress.size() && k < p.normal_stress.size(); ++k) stress[k]->SetValue(row, p.normal_stress[k]);
+  }
+};
+
+vtkIdType count_readout_points(const Assessment& a) {
+  vtkIdType n = 0;
+  for (const auto& toe : a.toes)
+    for (const auto& s : toe.stations) n += static_cast<vtkIdType>(s.points.size() + s.path.size());
+  return n;
+}
+
+// Fills readout.vtp station by station: the read-out points (vertices), then the walked path (a polyline).
+struct ReadoutBuilder {
+  const OutputContext& c;
+  vtkPoints* points;  // sized to count_readout_points
+  ReadoutArrays& arrays;
+  vtkNew<vtkCellArray> verts, lines;
+  vtkIdType next = 0;
+
+  vtkIdType put(const Vec3& x_mm, int toe_number, int station_id, double distance_mm) {
+    points->SetPoint(next, c.length(x_mm.x()), c.length(x_mm.y()), c.length(x_mm.z()));
+    arrays.label(next, toe_number, station_id, c.length(distance_mm));
+    return next++;
+  }
+
+  void add_station(int toe_number, const StationResult& s) {
+    for (const auto& p : s.points) {
+      const vtkIdType row = put(p.x, toe_number, s.station.id, p.distance);
+      verts->InsertNextCell({row});
+      arrays.fill_point(row, p, c);
+    }
+    if (s.path.empty()) return;
+    std::vector<vtkIdType> ids;
+    double walked = 0.0;  // mm along the path from the station
+    for (std::size_t i = 0; i < s.path.size(); ++i) {
+      if (i > 0) walked += (s.path[i] - s.path[i - 1]).norm();
+      ids.push_back(put(s.path[i], toe_number, s.station.id, walked));
+    }
+    lines->InsertNextCell(static_cast<vtkIdType>(ids.size()), ids.data());
+  }
+};
+
+}  // namespace
+
+void write_stations_vtp(const OutputContext& c, const std::string& path) {
+  vtkNew<vtkPolyData> data;
+  auto points = double_points();
+  for (const auto& toe : c.a->toes)
+    for (const auto& s : toe.stations) insert_point(points, c, s.station.x);
+  data->SetPoints(points);
+  StationArrays arrays(c, data);
+  vtkIdType row = 0;
+  for (std::size_t t = 0; t < c.a->toes.size(); ++t)
+    for (const auto& s : c.a->toes[t].stations) arrays.fill(row++, static_cast<int>(t + 1), s, c);
+  add_station_cells(*c.a, data);
+  data->GetPointData()->SetActiveScalars(kUtilization);
+  add_common_fields(c, data);
+  vtkNew<vtkXMLPolyDataWriter> writer;
+  write_xml(writer, data, path);
+}
+
+void write_readout_vtp(const OutputContext& c, const std::string& path) {
+  vtkNew<vtkPolyData> data;
+  auto points = double_points();
+  points->SetNumberOfPoints(count_readout_points(*c.a));
+  data->SetPoints(points);
+  ReadoutArrays arrays(c, data);
+  ReadoutBuilder builder{c, points, arrays, {}, {}, 0};
+  for (std::size_t t = 0; t < c.a->toes.size(); ++t)
+    for (const auto& s : c.a->toes[t].stations) builder.add_station(static_cast<int>(t + 1), s);
+  data->SetVerts(builder.verts);
+  data->SetLines(builder.lines);
+  add_common_fields(c, data);
+  vtkNew<vtkXMLPolyDataWriter> writer;
+  write_xml(writer, data, path);
+}
+
+}  // namespace toehold::detail
