@@ -332,16 +332,21 @@ Locator::Locator(const Mesh& mesh) : mesh_(&mesh) {
 }
 
 std::optional<Host> Locator::locate(const Vec3& x, double tolerance) const {
+  return locate(x, tolerance, CellFilter{});
+}
+
+std::optional<Host> Locator::locate(const Vec3& x, double tolerance, const CellFilter& refuse) const {
   vtkUnstructuredGrid* grid = mesh_->grid();
   Scratch& s = scratch(max_cell_size_);
   double xp[3] = {x.x(), x.y(), x.z()};
   double pc[3];
   const vtkIdType found = locator_->FindCell(xp, 0.0, s.cell, pc, s.weights.data());
-  if (found >= 0) {
+  if (found >= 0 && !(refuse && refuse(found))) {
     load_cell(grid, found, s);
     if (newton(s, x, pc) && inside(domain_of(s.cell->GetCellType()), pc)) return make_host(s, found, pc, 0.0);
   }
-  // No cell holds x to round-off: take the closest cell among those whose bounds come within the tolerance.
+  // No acceptable cell holds x to round-off: take the closest acceptable cell among those whose bounds come
+  // within the tolerance (a refused cell that holds x leaves its neighbours, which touch x, at distance 0).
   const double reach = std::max(tolerance, 0.0);
   double box[6] = {x.x() - reach, x.x() + reach, x.y() - reach, x.y() + reach, x.z() - reach, x.z() + reach};
   locator_->FindCellsWithinBounds(box, s.candidates);
@@ -349,7 +354,7 @@ std::optional<Host> Locator::locate(const Vec3& x, double tolerance) const {
   double best_distance = HUGE_VAL, best_pc[3] = {0, 0, 0};
   for (vtkIdType k = 0; k < s.candidates->GetNumberOfIds() && best_distance > 0.0; ++k) {
     const vtkIdType id = s.candidates->GetId(k);
-    if (!bounds_near(grid, id, x, reach)) continue;
+    if ((refuse && refuse(id)) || !bounds_near(grid, id, x, reach)) continue;
     const double d = distance_to_cell(grid, id, x, s, pc);
     if (d < best_distance) {
       best = id;

@@ -17,6 +17,7 @@
 #include <mutex>
 #include <numeric>
 #include <string>
+#include <tuple>
 
 namespace toehold {
 namespace {
@@ -130,6 +131,52 @@ private:
   std::vector<int> of_cell_;
 };
 
+// Discontinuous (element-nodal) results duplicate a node once per cell. For the surface, coincident points are one
+// point: the lowest id among them. The cells keep their own copies, so stresses still come from the host cell.
+class CanonicalPoints {
+public:
+  explicit CanonicalPoints(vtkUnstructuredGrid* grid) {
+    struct Keyed {
+      double x[3];
+      vtkIdType id;
+      bool operator<(const Keyed& o) const {
+        return std::tie(x[0], x[1], x[2], id) < std::tie(o.x[0], o.x[1], o.x[2], o.id);
+      }
+      bool same_place(const Keyed& o) const { return x[0] == o.x[0] && x[1] == o.x[1] && x[2] == o.x[2]; }
+    };
+    std::vector<Keyed> keyed(static_cast<std::size_t>(grid->GetNumberOfPoints()));
+    for (std::size_t i = 0; i < keyed.size(); ++i) {
+      grid->GetPoint(static_cast<vtkIdType>(i), keyed[i].x);
+      keyed[i].id = static_cast<vtkIdType>(i);
+    }
+    std::sort(keyed.begin(), keyed.end());
+    bool any = false;
+    std::vector<long long> canon(keyed.size());
+    for (std::size_t i = 0; i < keyed.size(); ++i) {
+      const bool same = i > 0 && keyed[i].same_place(keyed[i - 1]);
+      canon[static_cast<std::size_t>(keyed[i].id)] = same ? canon[static_cast<std::size_t>(keyed[i - 1].id)] : keyed[i].id;
+      any = any || same;
+    }
+    if (any) canon_ = std::move(canon);
+  }
+  bool any() const { return !canon_.empty(); }
+  long long of(long long p) const { return canon_.empty() ? p : canon_[static_cast<std::size_t>(p)]; }
+  const std::vector<long long>& table() const { return canon_; }
+  // The cell's point ids with each replaced by its canonical id (the grid's own array when there are no duplicates).
+  const vtkIdType* cell_points(vtkUnstructuredGrid* grid, vtkIdType cell, vtkIdType& npts) const {
+    const vtkIdType* pts = nullptr;
+    grid->GetCellPoints(cell, npts, pts);
+    if (canon_.empty()) return pts;
+    buffer_.assign(pts, pts + npts);
+    for (vtkIdType& p : buffer_) p = canon_[static_cast<std::size_t>(p)];
+    return buffer_.data();
+  }
+
+private:
+  std::vector<long long> canon_;
+  mutable std::vector<vtkIdType> buffer_;
+};
+
 using FaceKey = std::array<long long, 4>;  // sorted corner ids of a face; [3] = -1 for triangles
 
 constexpr long long kFaceBits = 16;  // a face is coded as cell * 16 + face number
@@ -150,14 +197,15 @@ FaceKey face_key(const FaceTemplate& face, const vtkIdType* pts) {
 
 // Boundary faces: those whose corner set no other face has. Faces are bucketed by their smallest corner id
 // (flat arrays, linear time), and only faces in one bucket are compared. Returns face codes in cell order.
-std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates& templates) {
+std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates& templates,
+                                      const CanonicalPoints& canonical) {
   const vtkIdType cells = grid->GetNumberOfCells();
   std::vector<long long> start(static_cast<std::size_t>(grid->GetNumberOfPoints()) + 1, 0);
   vtkIdType npts = 0;
   const vtkIdType* pts = nullptr;
   auto for_each_face = [&](auto&& visit) {
     for (vtkIdType c = 0; c < cells; ++c) {
-      grid->GetCellPoints(c, npts, pts);
+      pts = canonical.cell_points(grid, c, npts);
       const auto& faces = templates.of(c).faces;
       for (std::size_t f = 0; f < faces.size(); ++f) visit(c, f, face_key(faces[f], pts)[0]);
     }
@@ -175,7 +223,7 @@ std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates
     group.clear();
     for (long long i = start[b]; i < start[b + 1]; ++i) {
       const long long code = bucket[static_cast<std::size_t>(i)];
-      grid->GetCellPoints(FaceCode::cell(code), npts, pts);
+      pts = canonical.cell_points(grid, FaceCode::cell(code), npts);
       group.emplace_back(face_key(templates.of(FaceCode::cell(code)).faces[FaceCode::face(code)], pts), code);
     }
     std::sort(group.begin(), group.end());
@@ -262,11 +310,13 @@ Surface::Surface(const Mesh& mesh) : mesh_(&mesh), index_(std::make_shared<Facet
     throw Error("cannot find the surface of model '" + mesh.source() +
                 "': it has no volume cells; give a model with 3D cells");
   const Templates templates(grid, mesh.source());
+  const CanonicalPoints canonical(grid);
+  canonical_ = canonical.table();
   vtkIdType npts = 0;
   const vtkIdType* pts = nullptr;
-  for (long long code : boundary_faces(grid, templates)) {
+  for (long long code : boundary_faces(grid, templates, canonical)) {
     const vtkIdType cell = FaceCode::cell(code);
-    grid->GetCellPoints(cell, npts, pts);
+    pts = canonical.cell_points(grid, cell, npts);
     add_face_facets(grid->GetPoints(), cell, npts, pts, templates.of(cell).faces[FaceCode::face(code)], facets_);
   }
   std::vector<int> count(static_cast<std::size_t>(grid->GetNumberOfPoints()), 0);
@@ -326,6 +376,11 @@ SurfaceHit Surface::closest(const Vec3& x) const {
   hit.x = Vec3(closest[0], closest[1], closest[2]);
   hit.distance = std::sqrt(dist2);
   return hit;
+}
+
+long long Surface::canonical(long long p) const {
+  if (canonical_.empty() || p < 0 || static_cast<std::size_t>(p) >= canonical_.size()) return p;
+  return canonical_[static_cast<std::size_t>(p)];
 }
 
 Vec3 Surface::point(long long p) const { return point_of(mesh_->grid()->GetPoints(), p); }

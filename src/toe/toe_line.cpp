@@ -94,7 +94,11 @@ double ToeLine::length() const {
   return total;
 }
 
-ToeLine chain_marker_nodes(const Surface& surface, const std::vector<long long>& nodes, const std::string& what) {
+ToeLine chain_marker_nodes(const Surface& surface, const std::vector<long long>& marked, const std::string& what) {
+  std::vector<long long> nodes;  // one id per position: element-nodal files repeat a node once per cell
+  for (long long p : marked) nodes.push_back(surface.canonical(p));
+  std::sort(nodes.begin(), nodes.end());
+  nodes.erase(std::unique(nodes.begin(), nodes.end()), nodes.end());
   if (nodes.size() < 2)
     throw Error(what + ": " + std::to_string(nodes.size()) +
                 " marked node(s); a toe needs at least two nodes along the weld toe");

@@ -11,6 +11,7 @@
 #include <vtkStaticCellLocator.h>
 
 #include <array>
+#include <functional>
 #include <optional>
 #include <vector>
 
@@ -33,6 +34,11 @@ public:
   // `tolerance` mm is taken, with its distance recorded. nullopt when no cell is that close.
   // Safe to call from several threads at once on one Locator (each call uses its own VTK cell).
   std::optional<Host> locate(const Vec3& x, double tolerance) const;
+
+  // The same, never returning a cell for which `refuse(cell)` is true: at a point on the face between a refused
+  // cell (say a weld cell) and an accepted one, the accepted one is taken with distance 0.
+  using CellFilter = std::function<bool(long long)>;
+  std::optional<Host> locate(const Vec3& x, double tolerance, const CellFilter& refuse) const;
 
 private:
   const Mesh* mesh_;  // must outlive the Locator

@@ -42,6 +42,9 @@ public:
   // Closest point on the surface to x (mm). Fast on large models (a locator over the facets, built lazily;
   // the build is thread-safe, concurrent queries are as safe as VTK's vtkStaticCellLocator::FindClosestPoint).
   SurfaceHit closest(const Vec3& x) const;
+  // The id that stands for mesh point p on the surface: p itself, or, where the file repeats a node per cell
+  // (element-nodal results), the lowest id of the points at p's position. Facets use these ids.
+  long long canonical(long long p) const;
   // Position of mesh point p in mm.
   Vec3 point(long long p) const;
 
@@ -51,6 +54,7 @@ private:
   const Mesh* mesh_;  // must outlive the Surface
   std::vector<Facet> facets_;
   std::vector<std::vector<int>> point_facets_;  // by mesh point id
+  std::vector<long long> canonical_;            // by mesh point id; empty when no two points coincide
   std::shared_ptr<FacetIndex> index_;
 };
 
