@@ -5,7 +5,11 @@
 #include "toehold/fatigue/sn_catalogue.hpp"
 #include "toehold/hotspot/definition.hpp"
 
+#include "toehold/fatigue/rainflow.hpp"
+#include "toehold/loading/load_history.hpp"
+
 #include <algorithm>
+#include <optional>
 #include <sstream>
 
 namespace toehold {
@@ -51,63 +55,126 @@ int Assessment::stations_exceeding() const {
   return n;
 }
 
+namespace {
+
+using StepValues = std::vector<std::vector<std::vector<InPlaneStress>>>;  // per toe, per station, per step
+
+std::string counting_rule(const Plan& plan) {
+  switch (plan.loading.kind) {
+    case LoadingKind::range: return "";
+    case LoadingKind::blocks: return "block spectrum: cycles of each block as given in the plan";
+    default: break;
+  }
+  return describe(plan.loading.repeating_history ? ResidueRule::repeat_history : ResidueRule::half_cycles);
+}
+
+std::vector<PlacedToe> place_toes(const Plan& plan, const detail::ModelGeometry& geometry,
+                                  std::vector<SnCurve>& curves, Reporter& reporter) {
+  std::vector<PlacedToe> toes;
+  for (const ToePlan& toe : plan.toes) {
+    double factor = 1.0;
+    try {
+      curves.push_back(detail::toe_curve(plan, toe, factor));
+    } catch (const Error& e) {
+      throw Error("toe '" + toe.name + "': " + e.what());
+    }
+    toes.push_back(detail::place_toe(geometry, toe, plan.model.region_array, reporter));
+    ToeResult& r = toes.back().result;
+    r.thickness_factor = factor;
+    r.curve = curves.back().name();
+    r.curve_source = curves.back().source();
+    r.definition = to_string(parse_hot_spot_definition(toe.definition, "toe '" + toe.name + "'"));
+    if (plan.loading.kind != LoadingKind::range) {
+      r.damage_limit = toe.damage_limit;
+      r.mean_stress = detail::toe_mean_stress(toe);
+    }
+  }
+  return toes;
+}
+
+// Reads every step once and keeps, per station, the read-out normal stresses and the in-plane toe stress.
+StepValues read_steps(const Plan& plan, const Mesh& geometry, std::vector<PlacedToe>& toes, Assessment& out,
+                      Reporter& reporter) {
+  StepValues values(toes.size());
+  for (std::size_t t = 0; t < toes.size(); ++t) values[t].resize(toes[t].stations.size());
+  detail::StepReader steps(plan, geometry, reporter);
+  for (std::size_t k = 0; k < plan.steps.size(); ++k) {
+    reporter.progress("load steps", k, plan.steps.size());
+    const StressField field = steps.read(k);
+    for (std::size_t t = 0; t < toes.size(); ++t)
+      for (std::size_t s = 0; s < toes[t].stations.size(); ++s)
+        detail::record_step(toes[t].stations[s], toes[t].result.scheme, field, values[t][s]);
+  }
+  reporter.progress("load steps", plan.steps.size(), plan.steps.size());
+  out.input_files = steps.files();
+  return values;
+}
+
+std::optional<LoadHistory> read_history(const Plan& plan, Reporter& reporter) {
+  if (plan.loading.kind != LoadingKind::unit_cases) return std::nullopt;
+  std::vector<std::string> names;
+  for (const auto& s : plan.steps) names.push_back(s.name);
+  reporter.info("reading load history " + plan.loading.history_file);
+  return read_load_history(plan.loading.history_file, names);
+}
+
+// One station by the plan's loading kind.
+void evaluate_station(const Plan& plan, StationResult& r, const std::vector<InPlaneStress>& steps,
+                      const detail::ToeDamage& damage, HotSpotDefinition definition, const ToePlan& toe,
+                      const SnCurve& curve, const std::optional<LoadHistory>& history) {
+  switch (plan.loading.kind) {
+    case LoadingKind::range:
+      detail::evaluate_range(r, steps, definition, detail::definition_options(toe));
+      detail::check_range(r, curve, plan.requirement);
+      return;
+    case LoadingKind::series: detail::evaluate_series(r, steps, damage); return;
+    case LoadingKind::blocks: detail::evaluate_blocks(r, steps, damage, plan.loading.blocks); return;
+    case LoadingKind::unit_cases: detail::evaluate_unit_cases(r, steps, damage, *history, definition); return;
+  }
+}
+
+std::size_t count_stations(const std::vector<PlacedToe>& toes) {
+  std::size_t n = 0;
+  for (const auto& t : toes) n += t.stations.size();
+  return n;
+}
+
+}  // namespace
+
 Assessment run_assessment(const Plan& plan, Reporter& reporter) {
-  if (plan.loading.kind != LoadingKind::range)
-    throw Error(plan.path + ": loading kind '" + to_string(plan.loading.kind) +
-                "' is not available in this version; use kind = \"range\"");
   Assessment out;
   out.plan = plan;
+  out.counting = counting_rule(plan);
   for (const auto& s : plan.steps) out.steps.push_back(s.name);
+  const std::optional<LoadHistory> history = read_history(plan, reporter);
+  out.history_rows = history ? history->rows() : plan.loading.kind == LoadingKind::series ? plan.steps.size() : 0;
   const auto [geometry_file, geometry_step] = detail::geometry_source(plan);
   detail::ModelGeometry geometry(read_mesh(geometry_file, geometry_step, plan.model.length_unit, reporter));
   out.model_points = geometry.mesh.grid()->GetNumberOfPoints();
   out.model_cells = geometry.mesh.grid()->GetNumberOfCells();
   geometry.cell_region = detail::read_cell_region(geometry.mesh, plan.model.region_array);
 
-  std::vector<PlacedToe> toes;
   std::vector<SnCurve> curves;
-  for (const ToePlan& toe : plan.toes) {
-    double factor = 1.0;
-    try {
-      curves.push_back(detail::toe_curve(toe, factor));
-    } catch (const Error& e) {
-      throw Error("toe '" + toe.name + "': " + e.what());
-    }
-    toes.push_back(detail::place_toe(geometry, toe, plan.model.region_array, reporter));
-    toes.back().result.thickness_factor = factor;
-    toes.back().result.curve = curves.back().name();
-    toes.back().result.curve_source = curves.back().source();
-    toes.back().result.definition = to_string(parse_hot_spot_definition(toe.definition, "toe '" + toe.name + "'"));
-  }
-
-  // Tensors at the toe, per toe, per station, per step.
-  std::vector<std::vector<std::vector<Tensor>>> tensors(toes.size());
-  for (std::size_t t = 0; t < toes.size(); ++t) tensors[t].resize(toes[t].stations.size());
-  detail::StepReader steps(plan, geometry.mesh, reporter);
-  for (std::size_t k = 0; k < plan.steps.size(); ++k) {
-    reporter.progress("load steps", k, plan.steps.size());
-    const StressField field = steps.read(k);
-    for (std::size_t t = 0; t < toes.size(); ++t)
-      for (std::size_t s = 0; s < toes[t].stations.size(); ++s)
-        detail::record_step(toes[t].stations[s], toes[t].result.scheme, field, tensors[t][s]);
-  }
-  reporter.progress("load steps", plan.steps.size(), plan.steps.size());
-  out.input_files = steps.files();
+  std::vector<PlacedToe> toes = place_toes(plan, geometry, curves, reporter);
+  const StepValues values = read_steps(plan, geometry.mesh, toes, out, reporter);
   out.model = geometry.mesh;
 
+  const std::size_t total = count_stations(toes);
+  std::size_t done = 0;
+  const std::string what = history ? "load history at stations" : "stations";
   for (std::size_t t = 0; t < toes.size(); ++t) {
     const ToePlan& toe = plan.toes[t];
     const auto definition = parse_hot_spot_definition(toe.definition, "toe '" + toe.name + "'");
-    const auto options = detail::definition_options(toe);
-    for (std::size_t s = 0; s < toes[t].stations.size(); ++s) {
+    const detail::ToeDamage damage = detail::toe_damage(plan, toe, curves[t]);
+    for (std::size_t s = 0; s < toes[t].stations.size(); ++s, ++done) {
+      if (history && done % 16 == 0) reporter.progress(what, done, total);
       StationResult& r = toes[t].stations[s].result;
-      if (!r.ok()) continue;
-      detail::evaluate_range(r, tensors[t][s], definition, options);
-      detail::check_range(r, curves[t], plan.requirement);
+      if (r.ok()) evaluate_station(plan, r, values[t][s], damage, definition, toe, curves[t], history);
     }
     finish_toe(toes[t], out);
     out.toes.push_back(std::move(toes[t].result));
   }
+  if (history) reporter.progress(what, total, total);
   return out;
 }
 

@@ -21,12 +21,16 @@ Tensor toe_tensor(const PlacedStation& s, const ReadoutScheme& scheme, const Str
 }
 
 void record_step(PlacedStation& s, const ReadoutScheme& scheme, const StressField& field,
-                 std::vector<Tensor>& tensors) {
+                 std::vector<InPlaneStress>& steps) {
   if (!s.result.ok()) return;
   const Vec3& n = s.result.station.frame.readout;
-  for (std::size_t k = 0; k < s.hosts.size(); ++k)
-    s.result.points[k].normal_stress.push_back(normal_stress(interpolate(field, s.hosts[k]), n));
-  tensors.push_back(toe_tensor(s, scheme, field));
+  Tensor t = Tensor::Zero();
+  for (std::size_t k = 0; k < s.hosts.size(); ++k) {
+    const Tensor at = interpolate(field, s.hosts[k]);
+    s.result.points[k].normal_stress.push_back(normal_stress(at, n));
+    t += scheme.weights[k] * at;
+  }
+  steps.push_back(in_plane(t, s.result.station.frame));
 }
 
 DefinitionOptions definition_options(const ToePlan& toe) {
@@ -37,9 +41,11 @@ DefinitionOptions definition_options(const ToePlan& toe) {
 }
 
 // Hot-spot values per step and the largest range over all pairs of steps.
-void evaluate_range(StationResult& r, const std::vector<Tensor>& tensors, HotSpotDefinition definition,
+void evaluate_range(StationResult& r, const std::vector<InPlaneStress>& steps, HotSpotDefinition definition,
                     const DefinitionOptions& options) {
   const ToeFrame& frame = r.station.frame;
+  std::vector<Tensor> tensors;
+  for (const InPlaneStress& s : steps) tensors.push_back(tensor_of(s, frame));
   for (const Tensor& t : tensors) r.hot_spot.push_back(evaluate(definition, t, frame, options).value);
   bool any = false;
   std::string why;
@@ -62,8 +68,8 @@ void evaluate_range(StationResult& r, const std::vector<Tensor>& tensors, HotSpo
   if (!any) r.problem = tensors.size() < 2 ? "fewer than two load steps" : "no valid range: " + why;
 }
 
-SnCurve toe_curve(const ToePlan& toe, double& thickness_factor) {
-  SnCurve curve = parse_sn_curve(toe.curve);
+SnCurve toe_curve(const Plan& plan, const ToePlan& toe, double& thickness_factor) {
+  SnCurve curve = find_curve(plan, toe.curve);
   thickness_factor = 1.0;
   if (toe.thickness_exponent) {
     thickness_factor = iiw_thickness_factor(toe.thickness, *toe.thickness_exponent);

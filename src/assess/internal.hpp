@@ -4,11 +4,16 @@
 #include "toehold/assess/assessment.hpp"
 #include "toehold/fatigue/sn_curve.hpp"
 #include "toehold/hotspot/definition.hpp"
+#include "toehold/loading/in_plane_stress.hpp"
+#include "toehold/loading/load_history.hpp"
 #include "toehold/model/locator.hpp"
 #include "toehold/model/mesh.hpp"
 #include "toehold/model/stress_field.hpp"
 #include "toehold/model/surface.hpp"
 #include "toehold/toe/weld_side.hpp"
+
+#include "toehold/loading/spectrum_damage.hpp"
+#include "toehold/fatigue/rainflow.hpp"
 
 #include <map>
 #include <memory>
@@ -60,15 +65,38 @@ private:
 
 // Per-station evaluation (evaluate.cpp).
 Tensor toe_tensor(const PlacedStation& s, const ReadoutScheme& scheme, const StressField& field);
-// Appends the step's read-out normal stresses and toe tensor of a station that has a result.
+// Appends the step's read-out normal stresses and in-plane toe stress of a station that has a result.
 void record_step(PlacedStation& s, const ReadoutScheme& scheme, const StressField& field,
-                 std::vector<Tensor>& tensors);
+                 std::vector<InPlaneStress>& steps);
 DefinitionOptions definition_options(const ToePlan& toe);
-void evaluate_range(StationResult& r, const std::vector<Tensor>& tensors, HotSpotDefinition definition,
+void evaluate_range(StationResult& r, const std::vector<InPlaneStress>& steps, HotSpotDefinition definition,
                     const DefinitionOptions& options);
-// The toe's S-N curve with its thickness correction; thickness_factor receives the factor applied.
-SnCurve toe_curve(const ToePlan& toe, double& thickness_factor);
+// The toe's S-N curve (plan curve or catalogue) with its thickness correction; thickness_factor receives the
+// factor applied.
+SnCurve toe_curve(const Plan& plan, const ToePlan& toe, double& thickness_factor);
 void check_range(StationResult& r, const SnCurve& curve, const RequirementPlan& req);
+
+// Damage kinds (damage.cpp). What one toe's stations share.
+struct ToeDamage {
+  HotSpotScalar scalar;
+  SnCurve curve;
+  DamageRules rules;
+  ResidueRule residue = ResidueRule::half_cycles;
+  double required_repeats = 1.0;  // design_life_years x repeats_per_year when both are given, else 1
+};
+ToeDamage toe_damage(const Plan& plan, const ToePlan& toe, const SnCurve& curve);
+// "none" or "IIW f(R) <case>", for ToeResult::mean_stress.
+std::string toe_mean_stress(const ToePlan& toe);
+// series: the steps in order are the history.
+void evaluate_series(StationResult& r, const std::vector<InPlaneStress>& steps, const ToeDamage& d);
+// blocks: each block's range between two steps, its cycles as given.
+void evaluate_blocks(StationResult& r, const std::vector<InPlaneStress>& steps, const ToeDamage& d,
+                     const std::vector<BlockPlan>& blocks);
+// unit-cases: steps are the unit cases, history.channels in the same order.
+void evaluate_unit_cases(StationResult& r, const std::vector<InPlaneStress>& cases, const ToeDamage& d,
+                         const LoadHistory& history, HotSpotDefinition definition);
+// Hot-spot value per step (unit case) into r.hot_spot; a note when principal has no candidate at some steps.
+void record_hot_spots(StationResult& r, const std::vector<InPlaneStress>& steps, const HotSpotScalar& scalar);
 
 // The (file, step) of the mesh that serves as geometry: the first load step's.
 std::pair<std::string, int> geometry_source(const Plan& plan);

@@ -1,5 +1,6 @@
 // toehold: weld-toe hot-spot stress fatigue assessment from finite-element results. The command-line front end.
 #include "console.hpp"
+#include "curve_command.hpp"
 #include "inspect_command.hpp"
 #include "run_command.hpp"
 #include "toehold/common/error.hpp"
@@ -18,6 +19,8 @@ int main(int argc, char** argv) {
   RunOptions run;
   setup_inspect(app, inspect);
   setup_run(app, run);
+  CurveOptions curve;
+  setup_curve(app, curve);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -26,6 +29,7 @@ int main(int argc, char** argv) {
   }
   try {
     if (app.got_subcommand("inspect")) return run_inspect(inspect);
+    if (app.got_subcommand("curve")) return run_curve(curve);
     return run_run(run);
   } catch (const toehold::Error& e) {
     std::fprintf(stderr, "toehold: error: %s\n", e.what());

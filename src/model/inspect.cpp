@@ -141,7 +141,7 @@ std::vector<CellCount> count_cells(const detail::RawModel& raw) {
   return out;
 }
 
-// The data file to look at: `path` itself or the first step of a .pvd.
+// The data file to look at: `path` itself (a .frd shows its first result step) or the first step of a .pvd.
 std::string data_file_of(const std::string& path, ModelSummary& summary) {
   std::string ext = std::filesystem::path(path).extension().string();
   std::transform(ext.begin(), ext.end(), ext.begin(), [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
@@ -184,7 +184,8 @@ ModelSummary inspect_model(const std::string& path, Reporter& reporter) {
   detail::require_file(path);
   ModelSummary summary;
   summary.file = path;
-  const detail::RawModel raw = detail::read_raw(data_file_of(path, summary));
+  const detail::RawModel raw = detail::read_raw(data_file_of(path, summary), 0);  // a .frd: its first step
+  summary.remarks.insert(summary.remarks.end(), raw.notes.begin(), raw.notes.end());
   summary.cell_types = count_cells(raw);
   vtkUnstructuredGrid* grid = raw.pieces.front();
   detail::CleanModel clean;

@@ -391,10 +391,11 @@ void require_file(const std::string& path) {
   if (!fs::exists(path, ec)) throw Error(path + ": no such file; check the path and the current folder");
 }
 
-RawModel read_raw(const std::string& data_file) {
+RawModel read_raw(const std::string& data_file, int step) {
   require_file(data_file);
   const std::string ext = lower_extension(data_file);
   if (ext == ".pvtu") return read_pvtu(data_file);
+  if (ext == ".frd") return read_frd_raw(data_file, step);
   RawModel raw;
   raw.file = data_file;
   raw.piece_files = {data_file};
@@ -506,7 +507,8 @@ std::string resolve_series_file(const std::string& path, int step) {
 Mesh read_mesh(const std::string& path, int step, LengthUnit length, Reporter& reporter) {
   detail::require_file(path);
   const std::string file = resolve_series_file(path, step);
-  const detail::RawModel raw = detail::read_raw(file);
+  const detail::RawModel raw = detail::read_raw(file, file == path ? step : -1);
+  for (const std::string& note : raw.notes) reporter.info(fs::path(file).filename().string() + ": " + note);
   detail::CleanModel clean = detail::clean_model(raw, mm_per(length));
   const std::vector<std::string> phrases = detail::describe(clean.stats);
   if (!phrases.empty()) reporter.info(fs::path(file).filename().string() + ": " + joined(phrases));

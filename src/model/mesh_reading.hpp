@@ -1,5 +1,5 @@
 // Private to src/model: the two halves of read_mesh, shared with inspect_model. read_raw reads a data file
-// (.vtu, .pvtu, legacy .vtk) as the solver wrote it; clean_model removes the solver quirks and converts units.
+// (.vtu, .pvtu, legacy .vtk, CalculiX .frd) as the solver wrote it; clean_model removes the solver quirks and converts units.
 #pragma once
 
 #include "toehold/model/mesh.hpp"
@@ -20,6 +20,8 @@ struct RawModel {
   std::vector<std::string> piece_files;                      // file of each piece (== file for .vtu/.vtk)
   int repeated_pieces = 0;                                   // pieces a .pvtu listed again
   bool merge_pieces = false;                                 // .pvtu: merge coincident points of pieces
+  std::vector<std::string> notes;                            // facts about the file worth an info line (.frd)
+  int steps = 0;                                             // result steps in the file (.frd), 0 otherwise
 };
 
 // What cleaning did, counted.
@@ -37,9 +39,14 @@ struct CleanModel {
   CleanStats stats;
 };
 
-// Reads `data_file` (not a .pvd). Throws Error naming the file for a missing, unreadable, corrupt or truncated
-// file or one that holds no unstructured grid. VTK's own messages never reach stderr.
-RawModel read_raw(const std::string& data_file);
+// Reads `data_file` (not a .pvd); `step` picks the result step of a .frd (0-based, -1: the file has one step)
+// and is ignored for the other formats. Throws Error naming the file for a missing, unreadable, corrupt or
+// truncated file or one that holds no unstructured grid. VTK's own messages never reach stderr.
+RawModel read_raw(const std::string& data_file, int step = -1);
+
+// A CalculiX .frd with the results of `step` (see read_frd in toehold/model/frd_reader.hpp) as a one-piece
+// model; its notes say which step was read and how many nodes no element uses were left out.
+RawModel read_frd_raw(const std::string& file, int step);
 
 // Volume cells of `raw` without ghost cells, points multiplied by `scale` (mm per file length unit). Throws
 // Error naming the file and cell for an unsupported cell type, and when no volume cell is left.

@@ -6,11 +6,14 @@
 #include "toehold/common/error.hpp"
 
 #include <charconv>
+#include <cmath>
 #include <fstream>
 #include <system_error>
 
 namespace toehold::detail {
 namespace {
+
+bool damage_kind(const Assessment& a) { return a.plan.loading.kind != LoadingKind::range; }
 
 std::string quoted(const std::string& field) {
   if (field.find_first_of(",\"\r\n") == std::string::npos) return field;
@@ -19,8 +22,9 @@ std::string quoted(const std::string& field) {
   return out + "\"";
 }
 
-// Shortest decimal text that parses back to exactly `v` ("inf" for infinity).
+// Shortest decimal text that parses back to exactly `v` ("inf" for infinity, "" for NaN).
 std::string number(double v) {
+  if (std::isnan(v)) return "";
   char buffer[64];
   const auto [end, ec] = std::to_chars(buffer, buffer + sizeof buffer, v);
   return ec == std::errc() ? std::string(buffer, end) : std::string("nan");
@@ -52,7 +56,28 @@ Row header(const OutputContext& c) {
   for (const auto& step : c.a->steps) r.text(hot_spot_name(step));
   r.text("hot-spot stress range [MPa]").text("range between steps").text("allowable stress range [MPa]");
   r.text(kUtilization).text("life [cycles]").text("status").text("S-N curve");
+  if (damage_kind(*c.a))
+    r.text("damage [-]").text("damage limit [-]").text("life [repeats]").text("life [years]")
+        .text("equivalent stress range at 2e6 [MPa]").text("cycles per repeat").text("governing range [MPa]")
+        .text("governing mean [MPa]").text("governing cycles").text("governing damage share [-]")
+        .text("mean-stress correction").text("counting");
   return r;
+}
+
+void damage_fields(const OutputContext& c, const ToeResult& toe, const StationResult& s, Row& r) {
+  if (!s.ok()) {
+    for (int k = 0; k < 10; ++k) r.empty();
+  } else {
+    r.num(s.damage).num(toe.damage_limit).num(s.life_repeats).num(s.life_years).num(s.equivalent_range);
+    r.num(s.cycles_per_repeat);
+    if (s.governing.empty()) {
+      for (int k = 0; k < 4; ++k) r.empty();
+    } else {
+      const CycleDamage& g = s.governing.front();
+      r.num(g.cycle.range).num(g.cycle.mean).num(g.cycle.count).num(g.share);
+    }
+  }
+  r.text(toe.mean_stress).text(c.a->counting);
 }
 
 // "<step a> to <step b>", or "" when the range's steps are not known.
@@ -84,6 +109,7 @@ Row station_row(const OutputContext& c, int toe_number, const ToeResult& toe, co
   r.num(c.length(s.station.arc));
   result_fields(c, s, r);
   r.text(station_status(s)).text(toe.curve);
+  if (damage_kind(*c.a)) damage_fields(c, toe, s, r);
   return r;
 }
 

@@ -1,11 +1,14 @@
-// Writes the result files in order into an OutputFolder, with the provenance lines every VTK file carries and the
-// ParaView collection that opens the three VTK files together.
+// Writes the result files in order into an OutputFolder: the VTK files with the provenance as field data, the
+// ParaView collection that opens them together, the CSV, results.json, report.html and view_results.py.
 #include "toehold/output/results_writer.hpp"
 
 #include "result_files.hpp"
 #include "toehold/common/error.hpp"
+#include "toehold/output/json_results.hpp"
+#include "toehold/output/paraview_script.hpp"
+#include "toehold/output/provenance.hpp"
+#include "toehold/output/report_html.hpp"
 
-#include <ctime>
 #include <filesystem>
 #include <fstream>
 #include <map>
@@ -13,16 +16,6 @@
 namespace toehold {
 namespace detail {
 namespace {
-
-// The current time in UTC, ISO 8601 ("2024-05-01T12:00:00Z").
-std::string utc_now() {
-  const std::time_t now = std::time(nullptr);
-  std::tm parts{};
-  gmtime_r(&now, &parts);
-  char text[32];
-  std::strftime(text, sizeof text, "%Y-%m-%dT%H:%M:%SZ", &parts);
-  return text;
-}
 
 std::string xml_escaped(const std::string& text) {
   std::string out;
@@ -38,14 +31,16 @@ std::string xml_escaped(const std::string& text) {
   return out;
 }
 
+void write_text(const std::string& text, const std::string& path) {
+  std::ofstream out(path, std::ios::binary);
+  out << text;
+  out.close();
+  if (!out) throw Error("cannot write result file '" + path + "'; check that the output folder is writable");
+}
+
 }  // namespace
 
-std::vector<std::string> provenance_lines(const Assessment& a) {
-  std::vector<std::string> lines{std::string("toehold ") + TOEHOLD_VERSION, "plan: " + a.plan.path};
-  for (const auto& file : a.input_files) lines.push_back("input: " + file);
-  lines.push_back("written: " + utc_now());
-  return lines;
-}
+std::vector<std::string> provenance_lines(const Assessment& a) { return toehold::provenance_lines(collect_provenance(a)); }
 
 void write_collection_pvd(const std::vector<std::string>& files, const std::string& path) {
   std::ofstream out(path, std::ios::binary);
@@ -75,12 +70,12 @@ void require_unique_steps(const Assessment& a) {
   }
 }
 
-detail::OutputContext context_for(const Assessment& a, LengthUnit out_unit) {
+detail::OutputContext context_for(const Assessment& a, const Provenance& p, LengthUnit out_unit) {
   detail::OutputContext c;
   c.a = &a;
   c.mm_per_unit = mm_per(out_unit);
   c.unit = to_string(out_unit);
-  c.provenance = detail::provenance_lines(a);
+  c.provenance = provenance_lines(p);
   return c;
 }
 
@@ -89,7 +84,8 @@ detail::OutputContext context_for(const Assessment& a, LengthUnit out_unit) {
 std::vector<std::string> write_result_files(const Assessment& a, const Mesh& model, OutputFolder& out,
                                             LengthUnit out_unit, const FileWrittenHook& on_file) {
   require_unique_steps(a);
-  const detail::OutputContext c = context_for(a, out_unit);
+  const Provenance provenance = collect_provenance(a);
+  const detail::OutputContext c = context_for(a, provenance, out_unit);
   std::vector<std::string> written;
   const auto done = [&](const char* name) {
     written.emplace_back(name);
@@ -105,6 +101,12 @@ std::vector<std::string> write_result_files(const Assessment& a, const Mesh& mod
   done(kResultsPvd);
   detail::write_stations_csv(c, out.path_for(kStationsCsv));
   done(kStationsCsv);
+  detail::write_text(format_results_json(a, provenance, out_unit), out.path_for(kResultsJson));
+  done(kResultsJson);
+  detail::write_text(format_report_html(a, provenance, out_unit), out.path_for(kReportHtml));
+  done(kReportHtml);
+  detail::write_text(paraview_script_text(), out.path_for(kViewScript));
+  done(kViewScript);
   return written;
 }
 

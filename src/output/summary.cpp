@@ -62,6 +62,47 @@ std::string table(const Assessment& a) {
   return os.str();
 }
 
+std::string years(double value) {
+  if (std::isnan(value)) return "-";
+  return cycles(value);
+}
+
+// Damage kinds: the worst station of each toe by Miner sum.
+std::string damage_table(const Assessment& a) {
+  const std::string unit = to_string(a.plan.model.length_unit);
+  std::ostringstream os;
+  os << pad("toe", 16) << pad("stations", 9, true) << pad("worst", 7, true) << "  " << pad("at [" + unit + "]", 26)
+     << pad("damage", 11, true) << pad("limit", 7, true) << pad("eq. [MPa]", 11, true)
+     << pad("life [repeats]", 15, true) << pad("life [years]", 13, true) << "  status\n";
+  for (const ToeResult& t : a.toes) {
+    os << pad(t.plan.name, 16) << pad(std::to_string(t.stations.size()), 9, true);
+    if (t.worst < 0) {
+      os << pad("-", 7, true) << "  " << pad("-", 26) << pad("-", 11, true) << pad("-", 7, true) << pad("-", 11, true)
+         << pad("-", 15, true) << pad("-", 13, true) << "  no result\n";
+      continue;
+    }
+    const StationResult& s = t.stations[static_cast<std::size_t>(t.worst)];
+    os << pad(std::to_string(s.station.id), 7, true) << "  " << pad(position(s.station.x, a.plan.model.length_unit), 26)
+       << pad(cycles(s.damage), 11, true) << pad(cycles(t.damage_limit), 7, true)
+       << pad(fixed(s.equivalent_range, 1), 11, true) << pad(cycles(s.life_repeats), 15, true)
+       << pad(years(s.life_years), 13, true) << "  " << (s.exceeds() ? "EXCEEDS" : "passes") << "\n";
+  }
+  return os.str();
+}
+
+std::string loading_line(const Assessment& a) {
+  const auto& p = a.plan;
+  std::ostringstream os;
+  os << "loading: " << to_string(p.loading.kind);
+  if (p.loading.kind == LoadingKind::unit_cases)
+    os << ", " << a.steps.size() << " unit cases x " << a.history_rows << " history rows";
+  if (p.loading.kind == LoadingKind::blocks) os << ", " << p.loading.blocks.size() << " blocks";
+  os << "; counting: " << a.counting;
+  if (p.loading.repeats_per_year > 0) os << "; " << cycles(p.loading.repeats_per_year) << " repeats per year";
+  os << "; gamma_M = " << p.requirement.gamma_M << ", gamma_F = " << p.requirement.gamma_F << "\n";
+  return os.str();
+}
+
 }  // namespace
 
 std::string format_assessment_summary(const Assessment& a, const std::string& output_folder,
@@ -71,12 +112,19 @@ std::string format_assessment_summary(const Assessment& a, const std::string& ou
   os << "model: " << a.model_points << " points, " << a.model_cells << " volume cells; units "
      << to_string(a.plan.model.length_unit) << ", " << to_string(a.plan.model.stress_unit)
      << " (results in MPa); " << a.steps.size() << " load steps\n";
-  os << "requirement: " << cycles(a.plan.requirement.cycles) << " cycles, gamma_M = " << a.plan.requirement.gamma_M
-     << ", gamma_F = " << a.plan.requirement.gamma_F << "\n";
-  for (const ToeResult& t : a.toes)
+  const bool damage = a.plan.loading.kind != LoadingKind::range;
+  if (damage)
+    os << loading_line(a);
+  else
+    os << "requirement: " << cycles(a.plan.requirement.cycles) << " cycles, gamma_M = " << a.plan.requirement.gamma_M
+       << ", gamma_F = " << a.plan.requirement.gamma_F << "\n";
+  for (const ToeResult& t : a.toes) {
     os << "  toe '" << t.plan.name << "': " << t.scheme.label << "; " << t.definition << " stress; "
-       << t.curve << " (" << t.curve_source << ")\n";
-  os << "\nWorst station of each toe:\n" << table(a) << "\n";
+       << t.curve << " (" << t.curve_source << ")";
+    if (damage) os << "; damage limit " << t.damage_limit << "; mean stress " << t.mean_stress;
+    os << "\n";
+  }
+  os << "\nWorst station of each toe:\n" << (damage ? damage_table(a) : table(a)) << "\n";
   os << a.stations() << " stations: " << a.stations() - a.stations_without_result() - a.stations_exceeding()
      << " pass, " << a.stations_exceeding() << " exceed, " << a.stations_without_result() << " without result\n";
   if (!output_folder.empty()) {

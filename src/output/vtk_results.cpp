@@ -54,6 +54,7 @@ void add_common_fields(const OutputContext& c, vtkPolyData* data) {
   add_field_strings(data, kToeNames, toe_names(*c.a));
   add_field_strings(data, kLoadSteps, c.a->steps);
   add_field_strings(data, kProvenance, c.provenance);
+  if (!c.a->counting.empty()) add_field_strings(data, "counting", {c.a->counting});
 }
 
 vtkSmartPointer<vtkPoints> double_points() {
@@ -73,6 +74,28 @@ struct StationArrays {
   vtkSmartPointer<vtkIntArray> toe, id, exceeds, has_result;
   vtkSmartPointer<vtkDoubleArray> arc, range, allowable, utilization, life, tangent, normal, readout;
   std::vector<vtkSmartPointer<vtkDoubleArray>> hot_spot;  // one per load step
+  // Damage kinds only (null for range).
+  vtkSmartPointer<vtkDoubleArray> damage, life_repeats, life_years, equivalent, governing_range, governing_share;
+
+  void add_damage_arrays(vtkPolyData* data) {
+    damage = doubles(data, "damage [-]");
+    life_repeats = doubles(data, "life [repeats]");
+    life_years = doubles(data, "life [years]");
+    equivalent = doubles(data, "equivalent stress range at 2e6 [MPa]");
+    governing_range = doubles(data, "governing range [MPa]");
+    governing_share = doubles(data, "governing damage share [-]");
+  }
+
+  void fill_damage(vtkIdType row, const StationResult& s) {
+    if (!damage) return;
+    damage->SetValue(row, s.damage);
+    life_repeats->SetValue(row, s.life_repeats);
+    life_years->SetValue(row, s.life_years);
+    equivalent->SetValue(row, s.equivalent_range);
+    if (s.governing.empty()) return;
+    governing_range->SetValue(row, s.governing.front().cycle.range);
+    governing_share->SetValue(row, s.governing.front().share);
+  }
 
   StationArrays(const OutputContext& c, vtkPolyData* data)
       : toe(ints(data, kToeNumber)), id(ints(data, kStationId)), exceeds(ints(data, "exceeds allowable [1 = yes]")),
@@ -82,6 +105,7 @@ struct StationArrays {
         tangent(doubles(data, "toe tangent [unit vector]", 3)), normal(doubles(data, "surface normal [unit vector]", 3)),
         readout(doubles(data, "read-out direction [unit vector]", 3)) {
     for (const auto& step : c.a->steps) hot_spot.push_back(doubles(data, hot_spot_name(step)));
+    if (c.a->plan.loading.kind != LoadingKind::range) add_damage_arrays(data);
   }
 
   void fill(vtkIdType row, int toe_number, const StationResult& s, const OutputContext& c) {
@@ -101,6 +125,7 @@ struct StationArrays {
     allowable->SetValue(row, s.allowable);
     utilization->SetValue(row, s.utilization);
     life->SetValue(row, s.life);
+    fill_damage(row, s);
   }
 };
 

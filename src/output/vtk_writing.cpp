@@ -83,8 +83,9 @@ void write_xml(vtkXMLWriter* writer, vtkDataObject* data, const std::string& pat
   KeepErrors keep;
   writer->SetInputDataObject(data);
   writer->SetFileName(path.c_str());
-  writer->SetDataModeToAppended();
-  writer->EncodeAppendedDataOff();
+  // Inline binary (base64 per array), not appended: VTK 9.1 writes string field data (the provenance) into appended
+  // data at wrong offsets, which VTK 9.1 reads past but ParaView 5.11 refuses as not well-formed XML (seen here).
+  writer->SetDataModeToBinary();
   writer->SetCompressorTypeToNone();
   writer->SetHeaderTypeToUInt64();
   const int ok = writer->Write();

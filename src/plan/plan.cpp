@@ -18,8 +18,9 @@ namespace {
 
 namespace fs = std::filesystem;
 
-constexpr std::array<std::pair<std::string_view, LoadingKind>, 4> kLoadingNames{
+constexpr std::array<std::pair<std::string_view, LoadingKind>, 5> kLoadingNames{
     {{"range", LoadingKind::range},
+     {"blocks", LoadingKind::blocks},
      {"series", LoadingKind::series},
      {"unit-cases", LoadingKind::unit_cases},
      {"unit_cases", LoadingKind::unit_cases}}};
@@ -27,7 +28,7 @@ constexpr std::array<std::pair<std::string_view, LoadingKind>, 4> kLoadingNames{
 LoadingKind parse_loading_kind(std::string_view text, const std::string& where) {
   for (const auto& [name, kind] : kLoadingNames)
     if (name == text) return kind;
-  throw Error(where + ": unknown loading kind '" + std::string(text) + "'; use one of range, series, unit-cases");
+  throw Error(where + ": unknown loading kind '" + std::string(text) + "'; use one of range, series, unit-cases, blocks");
 }
 
 // true for repeating (ASTM E1049 sec. 5.4.5), false for half-cycles (sec. 5.4.4).
@@ -120,11 +121,13 @@ StepPlan read_step(const Context& ctx, const Fields& f, const ModelPlan& model) 
   step.name = f.need_text("name", "give each step a unique name");
   const std::optional<std::string> file = f.text("file");
   step.file = file ? resolve(ctx, *file) : model.file;
+  if (f.has("pvd_steps") && f.has("pvd_step")) f.fail_key("pvd_steps", "cannot be given together with pvd_step");
   if (std::optional<int> pvd = f.integer("pvd_step")) {
     f.require("pvd_step", *pvd >= 0, "0 or more (the first time step is 0)", *pvd);
-    if (fs::path(step.file).extension() != ".pvd")
-      f.fail_key("pvd_step",
-                 "applies to .pvd files only; '" + fs::path(step.file).filename().string() + "' is not one");
+    const auto extension = fs::path(step.file).extension();
+    if (extension != ".pvd" && extension != ".frd")
+      f.fail_key("pvd_step", "applies to .pvd series and CalculiX .frd results only; '" +
+                                 fs::path(step.file).filename().string() + "' is neither");
     step.step = *pvd;
   }
   step.stress = step_stress(f, model);
@@ -142,12 +145,15 @@ std::vector<StepPlan> read_steps(const Context& ctx, const toml::table& root, co
     Fields f(ctx.file, *tables[i], "step", "step " + std::to_string(i + 1), true);
     const std::string name = f.need_text("name", "give each step a unique name");
     f.set_owner("step '" + name + "'");
-    f.check_known({"name", "file", "pvd_step", "stress", "stress_components", "order"});
-    if (const auto it = seen.find(name); it != seen.end())
-      f.fail(" is defined twice (first at line " + std::to_string(it->second) + "); give each step its own name");
-    seen.emplace(name, f.line());
-    lines.push_back(f.line());
-    steps.push_back(read_step(ctx, f, model));
+    f.check_known({"name", "file", "pvd_step", "pvd_steps", "stress", "stress_components", "order"});
+    const StepPlan step = read_step(ctx, f, model);
+    for (const StepPlan& each : expand_pvd_steps(f, step)) {
+      if (const auto it = seen.find(each.name); it != seen.end())
+        f.fail(" is defined twice (first at line " + std::to_string(it->second) + "); give each step its own name");
+      seen.emplace(each.name, f.line());
+      lines.push_back(f.line());
+      steps.push_back(each);
+    }
   }
   return steps;
 }
@@ -157,10 +163,12 @@ std::vector<StepPlan> read_steps(const Context& ctx, const toml::table& root, co
 void read_cycle_keys(const Context& ctx, const Fields& f, LoadingPlan& loading) {
   if (loading.kind == LoadingKind::range) {
     for (std::string_view key : {"counting", "repeats_per_year"})
-      if (f.has(key)) f.fail_key(key, "applies to kind = \"series\" and \"unit-cases\", not \"range\"");
+      if (f.has(key)) f.fail_key(key, "applies to kind = \"series\", \"unit-cases\" and \"blocks\", not \"range\"");
     return;
   }
-  if (std::optional<std::string> counting = f.text("counting")) {
+  if (loading.kind == LoadingKind::blocks) {
+    if (f.has("counting")) f.fail_key("counting", "applies to kind = \"series\" and \"unit-cases\"; blocks are counted already");
+  } else if (std::optional<std::string> counting = f.text("counting")) {
     loading.repeating_history = parse_counting(*counting, f.where("counting"));
   } else {
     ctx.defaults->push_back("loading.counting = \"half-cycles\" (ASTM E1049 sec. 5.4.4)");
@@ -175,14 +183,15 @@ void read_cycle_keys(const Context& ctx, const Fields& f, LoadingPlan& loading) 
 
 void check_step_count(const Context& ctx, const Fields& f, LoadingKind kind, const std::vector<unsigned>& lines) {
   if (kind == LoadingKind::unit_cases || lines.size() >= 2) return;
-  const std::string why = kind == LoadingKind::range ? "a range is taken between two steps" : "a history needs two";
+  const std::string why = kind == LoadingKind::series ? "a history needs two" : "a range is taken between two steps";
   const std::string head =
       f.has("kind") ? f.where("kind") + " = \"" + to_string(kind) + "\""
                     : location(ctx.file, lines.front()) + "loading kind \"" + to_string(kind) + "\" (the default)";
   throw Error(head + " needs at least 2 [[step]] tables (" + why + "); the plan has 1");
 }
 
-LoadingPlan read_loading(const Context& ctx, const toml::table& root, const std::vector<unsigned>& step_lines) {
+LoadingPlan read_loading(const Context& ctx, const toml::table& root, const std::vector<unsigned>& step_lines,
+                         const std::vector<StepPlan>& steps) {
   const toml::table* table = section(ctx, root, "loading");
   Fields f(ctx.file, table != nullptr ? *table : empty_table(), "loading", "[loading]", false);
   f.check_known({"kind", "history", "counting", "repeats_per_year"});
@@ -200,6 +209,7 @@ LoadingPlan read_loading(const Context& ctx, const toml::table& root, const std:
     f.fail_key("history", "applies to kind = \"unit-cases\" only");
   if (history) loading.history_file = resolve(ctx, *history);
   read_cycle_keys(ctx, f, loading);
+  loading.blocks = read_blocks(ctx, root, loading.kind, steps);
   return loading;
 }
 
@@ -224,8 +234,9 @@ void read_damage_keys(const Context& ctx, const Fields& f, const LoadingPlan& lo
   if (std::optional<double> d = f.number("damage_limit")) {
     f.require("damage_limit", *d > 0, "greater than 0", *d);
     req.damage_limit = *d;
+    req.damage_limit_given = true;
   } else {
-    ctx.defaults->push_back("requirement.damage_limit = 1 (allowable Miner sum)");
+    req.damage_limit_given = false;
   }
   if (std::optional<double> years = f.number("design_life_years")) {
     f.require("design_life_years", *years >= 0, "0 or more", *years);
@@ -324,14 +335,18 @@ Plan parse(const std::string& text, const std::string& path) {
   Context ctx{path, plan_folder(path), &plan.defaults_applied};
   const toml::table root = parse_toml(text, path);
   Fields top(path, root, "", "", false);
-  top.check_known({"title", "model", "step", "loading", "toe_defaults", "toe", "requirement", "output"});
+  top.check_known(
+      {"title", "model", "step", "loading", "block", "curve", "toe_defaults", "toe", "requirement", "output"});
   plan.title = top.text("title").value_or("");
   plan.model = read_model(ctx, root);
   std::vector<unsigned> step_lines;
   plan.steps = read_steps(ctx, root, plan.model, step_lines);
-  plan.loading = read_loading(ctx, root, step_lines);
+  plan.loading = read_loading(ctx, root, step_lines, plan.steps);
+  ctx.kind = plan.loading.kind;
+  plan.curves = read_curves(ctx, root);
   plan.toes = read_toes(ctx, root, plan.model);
   plan.requirement = read_requirement(ctx, root, plan.loading);
+  resolve_damage_limits(ctx, plan);
   plan.output_folder = read_output(ctx, root);
   return plan;
 }
@@ -360,6 +375,8 @@ std::string to_string(LoadingKind kind) {
       return "series";
     case LoadingKind::unit_cases:
       return "unit-cases";
+    case LoadingKind::blocks:
+      return "blocks";
   }
   return "range";
 }

@@ -16,6 +16,7 @@ struct Context {
   std::filesystem::path folder;        // absolute folder of the plan; relative paths are resolved against it
   std::vector<std::string>* defaults;  // Plan::defaults_applied, appended to
   double mm = 1.0;                     // mm per model length unit (set once [model] is read)
+  LoadingKind kind = LoadingKind::range;  // set once [loading] is read
 };
 
 // `text` as an absolute, lexically normal path (relative ones against the plan's folder).
@@ -27,6 +28,20 @@ const toml::table* section(const Context& ctx, const toml::table& root, std::str
 std::vector<const toml::table*> section_array(const Context& ctx, const toml::table& root, std::string_view key);
 
 // The [[toe]] tables, merged with [toe_defaults]. Lengths converted to mm with ctx.mm.
+// One step per .pvd time step when the [[step]] table gives pvd_steps ("all" or [first, last]), named
+// "<name> <time step>"; otherwise just `step`.
+std::vector<StepPlan> expand_pvd_steps(const Fields& f, const StepPlan& step);
+
+// The [[block]] tables (kind "blocks": at least one; other kinds: none allowed), step names resolved.
+std::vector<BlockPlan> read_blocks(const Context& ctx, const toml::table& root, LoadingKind kind,
+                                   const std::vector<StepPlan>& steps);
+
+// The [[curve]] tables: user-defined S-N curves.
+std::vector<CurvePlan> read_curves(const Context& ctx, const toml::table& root);
+
+// Checks every toe's curve name and sets ToePlan::damage_limit (recording the defaults applied).
+void resolve_damage_limits(const Context& ctx, Plan& plan);
+
 std::vector<ToePlan> read_toes(const Context& ctx, const toml::table& root, const ModelPlan& model);
 
 }  // namespace toehold::plan_detail

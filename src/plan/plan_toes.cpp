@@ -1,5 +1,6 @@
 // The [[toe]] tables of a plan and their [toe_defaults]: where each toe is, which side the weld is on, and how its
 // hot-spot stress is read out and assessed.
+#include <algorithm>
 #include <map>
 
 #include "plan_sections.hpp"
@@ -12,7 +13,8 @@ namespace {
 const std::vector<std::string_view> kLocationKeys{"name", "marker_array", "marker_value", "points", "closed"};
 const std::vector<std::string_view> kSettingKeys{"weld_regions",  "weld_point",   "thickness", "spacing",
                                                  "hot_spot_type", "scheme",       "distances", "factor",
-                                                 "definition",    "detail_class", "curve",     "thickness_exponent"};
+                                                 "definition",    "detail_class", "curve",     "thickness_exponent",
+                                                 "mean_stress"};
 
 std::vector<std::string_view> all_toe_keys() {
   std::vector<std::string_view> keys = kLocationKeys;
@@ -141,6 +143,23 @@ void read_scheme(const Context& ctx, const Fields& f, ToePlan& toe) {
   }
 }
 
+// mean_stress: "none" or an IIW 2016 sec. 3.5.3 residual-stress case (hyphens or underscores).
+void read_mean_stress(const Context& ctx, const Fields& f, ToePlan& toe) {
+  const std::optional<std::string> text = f.text("mean_stress");
+  if (ctx.kind == LoadingKind::range) {
+    if (text) f.fail_key("mean_stress", "applies to loading kinds series, unit-cases and blocks, not range");
+    return;
+  }
+  if (!text) {
+    record(ctx, toe, "mean_stress = \"none\" (no mean-stress enhancement f(R))");
+    return;
+  }
+  if (*text == "none") return;
+  std::string key = *text;
+  std::replace(key.begin(), key.end(), '-', '_');
+  toe.mean_stress = parse_iiw_mean_stress_case(key, f.where("mean_stress"));
+}
+
 void read_assessment(const Context& ctx, const Fields& f, ToePlan& toe) {
   if (std::optional<std::string> definition = f.text("definition")) {
     toe.definition = *definition;
@@ -155,6 +174,7 @@ void read_assessment(const Context& ctx, const Fields& f, ToePlan& toe) {
   } else {
     record(ctx, toe, "no thickness_exponent (no thickness correction)");
   }
+  read_mean_stress(ctx, f, toe);
 }
 
 ToePlan read_toe(const Context& ctx, const Fields& f, const ModelPlan& model) {

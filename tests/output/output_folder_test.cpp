@@ -206,10 +206,11 @@ TEST(OutputFolder, SummaryCanJoinTheResultsBeforeCommit) {
   const auto names = write_result_files(a, mesh_of(grid), out, LengthUnit::mm);
   write_text(out.path_for("summary.txt"), "summary");
   out.commit();
-  EXPECT_EQ(names.size(), 5u);
+  EXPECT_EQ(names.size(), 8u);
   EXPECT_EQ(listing(dir.file("results")),
-            (std::vector<std::string>{".toehold-results", "model.vtu", "readout.vtp", "results.pvd", "stations.csv",
-                                      "stations.vtp", "summary.txt"}));
+            (std::vector<std::string>{".toehold-results", "model.vtu", "readout.vtp", "report.html", "results.json",
+                                      "results.pvd", "stations.csv", "stations.vtp", "summary.txt",
+                                      "view_results.py"}));
 }
 
 }  // namespace

@@ -63,13 +63,13 @@ TEST(PlanErrors, UnknownKeyListsTheKnownOnes) {
   EXPECT_EQ(error_of(edited({{15, "thicknes = 12"}})),
             "plan.toml line 15: toe 'north': unknown key 'thicknes'; known keys: name, marker_array, marker_value, "
             "points, closed, weld_regions, weld_point, thickness, spacing, hot_spot_type, scheme, distances, factor, "
-            "definition, detail_class, curve, thickness_exponent");
+            "definition, detail_class, curve, thickness_exponent, mean_stress");
   EXPECT_EQ(error_of(edited({{5, "stres = \"stress\""}})),
             "plan.toml line 5: [model]: unknown key 'stres'; known keys: file, length_unit, stress_unit, stress, "
             "stress_components, order, region_array");
   EXPECT_EQ(error_of("titel = \"x\"\n" + edited({})),
-            "plan.toml line 1: unknown top-level key 'titel'; known keys: title, model, step, loading, toe_defaults, "
-            "toe, requirement, output");
+            "plan.toml line 1: unknown top-level key 'titel'; known keys: title, model, step, loading, block, curve, "
+            "toe_defaults, toe, requirement, output");
 }
 
 TEST(PlanErrors, WrongTypeNamesKeyAndBothTypes) {
@@ -203,12 +203,12 @@ TEST(PlanErrors, KeysOfAnotherLoadingKindAreRejected) {
   EXPECT_EQ(error_of(edited({}, "damage_limit = 0.5\n")),
             "plan.toml line 19: key requirement.damage_limit does not apply to loading kind \"range\"");
   EXPECT_EQ(error_of(edited({}, "[loading]\ncounting = \"repeating\"\n")),
-            "plan.toml line 20: key loading.counting applies to kind = \"series\" and \"unit-cases\", not \"range\"");
+            "plan.toml line 20: key loading.counting applies to kind = \"series\", \"unit-cases\" and \"blocks\", not \"range\"");
 }
 
 TEST(PlanErrors, PvdStepOnlyForPvdFiles) {
   EXPECT_EQ(error_of(edited({{7, "name = \"a\"\npvd_step = 2"}})),
-            "plan.toml line 8: step 'a': key step.pvd_step applies to .pvd files only; 'm.vtu' is not one");
+            "plan.toml line 8: step 'a': key step.pvd_step applies to .pvd series and CalculiX .frd results only; 'm.vtu' is neither");
   EXPECT_EQ(error_of(edited({{2, "file = \"m.pvd\""}, {7, "name = \"a\"\npvd_step = -1"}})),
             "plan.toml line 8: step 'a': key step.pvd_step must be 0 or more (the first time step is 0), not -1");
 }

@@ -56,6 +56,7 @@ definition = "effective"
 detail_class = "C1"
 curve = "DNV D"
 thickness_exponent = 0.2
+mean_stress = "none"
 [requirement]
 gamma_M = 1.35
 gamma_F = 1.1
@@ -251,11 +252,13 @@ TEST(Plan, UnitCasesResolveTheHistoryAndRecordTheirDefaults) {
   EXPECT_EQ(plan.loading.kind, LoadingKind::unit_cases);
   EXPECT_EQ(plan.loading.history_file, (dir.path().parent_path() / "loads/channels.csv").string());
   EXPECT_FALSE(plan.loading.repeating_history);
-  EXPECT_CLOSE(plan.requirement.damage_limit, 1.0, 1e-15);
+  EXPECT_FALSE(plan.requirement.damage_limit_given);
+  EXPECT_CLOSE(plan.toes[0].damage_limit, 0.5, 1e-15);  // IIW 2016 sec. 4.3.1, from memory [M]
   EXPECT_CLOSE(plan.requirement.cycles, 0.0, 1e-15);
   for (const char* line :
        {"loading.counting = \"half-cycles\" (ASTM E1049 sec. 5.4.4)", "loading.repeats_per_year = 0 (no life in years)",
-        "requirement.damage_limit = 1 (allowable Miner sum)",
+        "toe 'north': damage_limit = 0.5 (IIW 2016 sec. 4.3.1 allowable Miner sum)",
+        "toe 'north': mean_stress = \"none\" (no mean-stress enhancement f(R))",
         "requirement.design_life_years = 0 (no required life in years)"})
     EXPECT_TRUE(contains(plan.defaults_applied, line)) << line;
 }

@@ -4,6 +4,7 @@
 
 #include "toehold/common/reporter.hpp"
 #include "toehold/common/tensor.hpp"
+#include "toehold/fatigue/miner.hpp"
 #include "toehold/model/mesh.hpp"
 #include "toehold/plan/plan.hpp"
 #include "toehold/readout/scheme.hpp"
@@ -11,6 +12,7 @@
 #include "toehold/toe/toe_line.hpp"
 
 #include <array>
+#include <limits>
 #include <string>
 #include <vector>
 
@@ -31,13 +33,31 @@ struct StationResult {
   std::vector<Vec3> path;              // the walked read-out path on the surface, mm
   std::string problem;                 // why the station has no result (empty when it has one)
   std::vector<std::string> notes;      // remarks that do not void the result (principal window choices, ...)
-  std::vector<double> hot_spot;        // per load step: hot-spot stress by the toe's definition, MPa
-  double range = 0.0;                  // hot-spot stress range, MPa (largest over pairs of steps), >= 0
-  int range_from = -1, range_to = -1;  // the two steps (indices into Assessment::steps) that give the range
+  std::vector<double> hot_spot;        // per load step (unit case for unit-cases): hot-spot stress, MPa
+  // range: the largest range over pairs of steps. series, unit-cases, blocks: the largest counted range. MPa, >= 0
+  double range = 0.0;
+  // range: the two steps (indices into Assessment::steps) that give the range. series and blocks: the steps of
+  // the governing cycle (series: the turning points' steps). -1 when not known (unit-cases: rows, not steps).
+  int range_from = -1, range_to = -1;
   double range_angle_deg = 0.0;        // principal definition: direction of the range, degrees from readout
-  double allowable = 0.0;              // allowable range at the required cycles, with gamma_M, MPa
-  double utilization = 0.0;            // gamma_F * range / allowable
-  double life = 0.0;                   // cycles to failure of gamma_F * gamma_M * range (inf: no damage)
+  // range: allowable range at the required cycles, with gamma_M. Other kinds: the curve's range at 2e6 cycles
+  // divided by gamma_M (compare with equivalent_range). MPa.
+  double allowable = 0.0;
+  // range: gamma_F * range / allowable. Other kinds: damage x required repeats / damage_limit of the toe, the
+  // required repeats being requirement.design_life_years x loading.repeats_per_year when both are given, else 1
+  // (one repeat of the history).
+  double utilization = 0.0;
+  // range: cycles to failure of gamma_F * gamma_M * range. Other kinds: life_repeats times the cycles of one
+  // repeat of the history. inf: no damage.
+  double life = 0.0;
+
+  // series, unit-cases, blocks only (0 / empty / NaN for range):
+  double damage = 0.0;                 // Miner sum of one repeat of the history, with gamma_F, gamma_M, f(R)
+  double life_repeats = 0.0;           // repeats of the history until damage reaches the toe's damage_limit
+  double life_years = std::numeric_limits<double>::quiet_NaN();  // life_repeats / repeats_per_year; NaN if none
+  double equivalent_range = 0.0;       // equivalent constant-amplitude range at 2e6 cycles, MPa (see allowable)
+  double cycles_per_repeat = 0.0;      // counted cycles in one repeat (half cycles count 0.5)
+  std::vector<CycleDamage> governing;  // the most damaging cycles, most damaging first (ranges as counted, MPa)
 
   bool ok() const { return problem.empty(); }
   bool exceeds() const { return ok() && utilization > 1.0; }
@@ -51,13 +71,19 @@ struct ToeResult {
   std::string curve;                   // curve name with corrections applied
   std::string curve_source;            // document, edition, section
   double thickness_factor = 1.0;       // f(t) applied to the curve (1 when none)
+  double damage_limit = 0.0;           // series, unit-cases, blocks: allowable Miner sum of the toe; 0 for range
+  std::string mean_stress;             // "none", or the IIW f(R) case applied ("IIW f(R) stress_relieved")
   std::vector<StationResult> stations;
   int worst = -1;                      // index into stations of the largest utilization; -1 when none has a result
 };
 
 struct Assessment {
   Plan plan;
-  std::vector<std::string> steps;      // load step names, in plan order
+  std::vector<std::string> steps;      // load step names, in plan order (unit-cases: the unit case names)
+  // series, unit-cases: the residue rule used, with its ASTM E1049-85 section; blocks: "blocks as given";
+  // range: "". Written into every output.
+  std::string counting;
+  std::size_t history_rows = 0;        // unit-cases: rows of the load history; series: steps; else 0
   std::vector<std::string> input_files;  // every model file read, in reading order
   std::vector<ToeResult> toes;
   std::vector<std::string> warnings;   // collected remarks for the end of the console summary

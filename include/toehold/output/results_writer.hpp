@@ -1,6 +1,7 @@
-// Writes an assessment's results for viewing and post-processing: stations and read-out paths as VTK polydata, the
-// model with the station utilization on its nodes, a ParaView collection opening all three, and a CSV table of the
-// stations. docs/outputs.md describes every file and array. Coordinates go back to the model's length unit.
+// Writes an assessment's results for viewing, review and post-processing: stations and read-out paths as VTK
+// polydata, the model with the station utilization on its nodes, a ParaView collection opening all three, a CSV
+// table of the stations, results.json, the HTML report and a ParaView script. docs/outputs.md describes every file;
+// coordinates go back to the model's length unit. Every file carries the run's provenance.
 #pragma once
 
 #include "toehold/assess/assessment.hpp"
@@ -20,6 +21,9 @@ inline constexpr const char* kReadoutVtp = "readout.vtp";
 inline constexpr const char* kModelVtu = "model.vtu";
 inline constexpr const char* kResultsPvd = "results.pvd";
 inline constexpr const char* kStationsCsv = "stations.csv";
+inline constexpr const char* kResultsJson = "results.json";
+inline constexpr const char* kReportHtml = "report.html";
+inline constexpr const char* kViewScript = "view_results.py";
 
 // Called after each result file is complete, with its file name (e.g. "stations.vtp"). A hook that throws stops
 // the writing; the exception passes through write_results and no output folder is left behind.

@@ -4,6 +4,8 @@
 
 #include "toehold/common/tensor.hpp"
 #include "toehold/common/units.hpp"
+#include "toehold/fatigue/corrections.hpp"
+#include "toehold/fatigue/sn_curve.hpp"
 #include "toehold/model/stress_field.hpp"
 #include "toehold/readout/scheme.hpp"
 
@@ -35,13 +37,29 @@ enum class LoadingKind {
   range,       // the largest range between any two steps, applied `cycles` times (constant amplitude)
   series,      // the steps in order are one stress history; rainflow-counted, repeated `repeats` times
   unit_cases,  // the steps are unit load cases scaled by the columns of a history table and summed
+  blocks,      // a block spectrum: each [[block]] is a range between two steps applied a number of cycles
+};
+
+// One block of a block spectrum: `cycles` cycles of the range between two load steps.
+struct BlockPlan {
+  std::string from, to;  // step names
+  int from_step = -1, to_step = -1;  // indices into Plan::steps
+  double cycles = 0.0;   // cycles of the block per repeat of the spectrum, >= 0
+  unsigned line = 0;     // line of the [[block]] table, for messages
 };
 
 struct LoadingPlan {
   LoadingKind kind = LoadingKind::range;
   std::string history_file;            // unit_cases: CSV with one column per step (named as the steps)
   bool repeating_history = false;      // series/unit_cases: ASTM E1049 sec. 5.4.5 instead of 5.4.4 (half cycles)
-  double repeats_per_year = 0.0;       // series/unit_cases: repeats of the history per year; 0 = no life in years
+  double repeats_per_year = 0.0;       // series/unit_cases/blocks: repeats of the history per year; 0 = none
+  std::vector<BlockPlan> blocks;       // blocks: the spectrum, in plan order (at least one)
+};
+
+// A user-defined S-N curve from a [[curve]] table; toes name it in `curve` like a catalogue curve.
+struct CurvePlan {
+  std::string name;
+  SnCurve curve;
 };
 
 // Where a toe is and how it is assessed.
@@ -66,6 +84,11 @@ struct ToePlan {
   std::string detail_class;             // DNV detail class for the effective hot-spot stress factor, "" if none
   std::string curve;                    // S-N curve name from the catalogue, e.g. "IIW FAT 100"
   std::optional<double> thickness_exponent;  // IIW thickness correction exponent n; none = no correction
+  // series/unit_cases/blocks: IIW 2016 sec. 3.5.3 mean-stress enhancement f(R) case; none = no correction.
+  std::optional<IiwMeanStressCase> mean_stress;
+  // series/unit_cases/blocks: allowable Miner sum for this toe: requirement.damage_limit when given, else 0.5
+  // (IIW 2016 sec. 4.3.1) for IIW and user curves and 1.0 for EN 1993-1-9 and DNVGL-RP-C203 curves.
+  double damage_limit = 0.5;
 };
 
 // What the joint must achieve.
@@ -73,7 +96,8 @@ struct RequirementPlan {
   double cycles = 0.0;        // required cycles of the range (LoadingKind::range), > 0
   double gamma_M = 1.0;       // partial safety factor on fatigue resistance (divides the allowable range)
   double gamma_F = 1.0;       // partial safety factor on the load (multiplies the stress range)
-  double damage_limit = 1.0;  // allowable Miner sum (series and unit_cases)
+  double damage_limit = 1.0;  // allowable Miner sum given in the plan (see damage_limit_given)
+  bool damage_limit_given = false;  // false: each toe takes the default of its curve (ToePlan::damage_limit)
   double design_life_years = 0.0;  // series/unit_cases with repeats_per_year: required life; 0 = none
 };
 
@@ -85,6 +109,7 @@ struct Plan {
   std::vector<StepPlan> steps;
   LoadingPlan loading;
   std::vector<ToePlan> toes;
+  std::vector<CurvePlan> curves;   // user-defined curves, in plan order
   RequirementPlan requirement;
   std::string output_folder;       // resolved; the command line may override it
   std::vector<std::string> defaults_applied;  // "toe 'north': spacing = 0 (a station at every toe node)", ...
@@ -98,5 +123,8 @@ Plan read_plan(const std::string& path);
 Plan parse_plan(const std::string& text, const std::string& path);
 
 std::string to_string(LoadingKind kind);
+
+// The curve a toe names: a plan curve of that name, else the catalogue's (parse_sn_curve; Error when neither).
+SnCurve find_curve(const Plan& plan, const std::string& name);
 
 }  // namespace toehold

@@ -1,0 +1,189 @@
+// results.json after docs/results-schema.md: one writer function per object of the schema.
+#include "toehold/output/json_results.hpp"
+
+#include "toehold/output/json_writer.hpp"
+#include "toehold/output/summary.hpp"
+
+#include <cmath>
+
+namespace toehold {
+namespace {
+
+struct Context {
+  const Assessment& a;
+  double mm_per_unit;  // divide mm by this for the output unit
+  double length(double mm) const { return mm / mm_per_unit; }
+  std::vector<double> position(const Vec3& x_mm) const {
+    return {length(x_mm.x()), length(x_mm.y()), length(x_mm.z())};
+  }
+};
+
+bool uses_damage(const Assessment& a) { return a.plan.loading.kind != LoadingKind::range; }
+
+// A number that may be infinite (no damage): the number, or the string "infinite".
+void maybe_infinite(JsonWriter& w, const char* name, double v) {
+  w.key(name);
+  if (std::isinf(v) && v > 0)
+    w.value("infinite");
+  else
+    w.value(v);
+}
+
+void write_provenance(JsonWriter& w, const Provenance& p) {
+  w.key("provenance").begin_object();
+  w.field("tool", "toehold").field("tool_version", p.tool_version).field("written_utc", p.written_utc);
+  w.field("platform", p.platform).field("plan_path", p.plan_path).field("plan_text", p.plan_text);
+  w.key("files").begin_array();
+  for (const auto& f : p.files) {
+    w.begin_object().field("role", f.role).field("path", f.path);
+    if (f.read()) {
+      w.field("size_bytes", static_cast<long long>(f.size_bytes)).field("sha256", f.sha256);
+      w.key("problem").null();
+    } else {
+      w.key("size_bytes").null().key("sha256").null().field("problem", f.problem);
+    }
+    w.end_object();
+  }
+  w.end_array();
+  w.key("defaults_applied").strings(p.defaults_applied);
+  w.end_object();
+}
+
+void write_run(JsonWriter& w, const Context& c, LengthUnit out_unit) {
+  const Plan& plan = c.a.plan;
+  w.field("title", plan.title).field("caution", kCaution);
+  w.key("units").begin_object(true).field("length", to_string(out_unit)).field("stress", "MPa").end_object();
+  w.key("model").begin_object().field("file", plan.model.file);
+  w.field("length_unit", to_string(plan.model.length_unit)).field("stress_unit", to_string(plan.model.stress_unit));
+  w.field("points", c.a.model_points).field("volume_cells", c.a.model_cells).end_object();
+  w.key("steps").strings(c.a.steps);
+  w.key("loading").begin_object().field("kind", to_string(plan.loading.kind)).field("counting", c.a.counting);
+  w.field("repeats_per_year", plan.loading.repeats_per_year).end_object();
+  const RequirementPlan& r = plan.requirement;
+  w.key("requirement").begin_object().field("cycles", r.cycles).field("gamma_M", r.gamma_M);
+  w.field("gamma_F", r.gamma_F).field("design_life_years", r.design_life_years).end_object();
+  const int total = c.a.stations(), exceed = c.a.stations_exceeding(), none = c.a.stations_without_result();
+  w.key("counts").begin_object(true).field("stations", total).field("pass", total - exceed - none);
+  w.field("exceed", exceed).field("without_result", none).end_object();
+  w.key("warnings").strings(c.a.warnings);
+}
+
+void write_scheme(JsonWriter& w, const ReadoutScheme& s) {
+  w.key("scheme").begin_object().field("name", to_string(s.kind)).field("hot_spot_type", to_string(s.type));
+  w.field("label", s.label).field("source", s.source);
+  w.key("distances").numbers(s.distances);
+  w.key("weights").numbers(s.weights).end_object();
+}
+
+void write_frame(JsonWriter& w, const Station& s) {
+  w.key("frame");
+  if (!s.problem.empty()) {
+    w.null();
+    return;
+  }
+  const auto v = [](const Vec3& x) { return std::vector<double>{x.x(), x.y(), x.z()}; };
+  w.begin_object().key("tangent").numbers(v(s.frame.tangent)).key("normal").numbers(v(s.frame.normal));
+  w.key("readout").numbers(v(s.frame.readout)).end_object();
+}
+
+void write_points(JsonWriter& w, const Context& c, const StationResult& s) {
+  w.key("readout_points").begin_array();
+  for (const auto& p : s.points) {
+    w.begin_object().field("distance", c.length(p.distance)).key("position").numbers(c.position(p.x));
+    w.field("cell", p.cell).field("outside_model", c.length(p.off_model));
+    w.key("normal_stress").numbers(p.normal_stress).end_object();
+  }
+  w.end_array();
+  w.key("path").begin_array();
+  for (const auto& x : s.path) w.numbers(c.position(x));
+  w.end_array();
+}
+
+void write_damage(JsonWriter& w, const ToeResult& t, const StationResult& s) {
+  w.field("damage", s.damage).field("damage_limit", t.damage_limit);
+  maybe_infinite(w, "life_repeats", s.life_repeats);
+  maybe_infinite(w, "life_years", s.life_years);
+  w.field("equivalent_range", s.equivalent_range).field("cycles_per_repeat", s.cycles_per_repeat);
+  w.key("governing_cycles").begin_array();
+  for (const auto& g : s.governing)
+    w.begin_object(true).field("range", g.cycle.range).field("mean", g.cycle.mean).field("count", g.cycle.count)
+        .field("damage", g.damage).field("share", g.share).end_object();
+  w.end_array();
+}
+
+void write_result(JsonWriter& w, const Context& c, const ToeResult& t, const StationResult& s) {
+  w.key("result");
+  if (!s.ok()) {
+    w.null();
+    return;
+  }
+  w.begin_object().key("hot_spot").numbers(s.hot_spot).field("range", s.range);
+  w.key("range_steps");
+  if (s.range_from >= 0 && s.range_to >= 0)
+    w.begin_array(true).value(s.range_from).value(s.range_to).end_array();
+  else
+    w.null();
+  w.field("range_angle_deg", s.range_angle_deg).field("allowable", s.allowable);
+  w.field("utilization", s.utilization);
+  maybe_infinite(w, "life_cycles", s.life);
+  if (uses_damage(c.a)) write_damage(w, t, s);
+  w.end_object();
+}
+
+std::string status_of(const StationResult& s) {
+  if (!s.ok()) return "no result";
+  return s.exceeds() ? "exceeds" : "ok";
+}
+
+void write_station(JsonWriter& w, const Context& c, const ToeResult& t, const StationResult& s) {
+  w.begin_object().field("id", s.station.id).key("position").numbers(c.position(s.station.x));
+  w.field("arc_length", c.length(s.station.arc));
+  w.key("node");
+  if (s.station.node >= 0)
+    w.value(s.station.node);
+  else
+    w.null();
+  write_frame(w, s.station);
+  w.field("status", status_of(s)).key("problem");
+  if (s.ok())
+    w.null();
+  else
+    w.value(s.problem);
+  w.key("notes").strings(s.notes);
+  write_points(w, c, s);
+  write_result(w, c, t, s);
+  w.end_object();
+}
+
+void write_toe(JsonWriter& w, const Context& c, int number, const ToeResult& t) {
+  w.begin_object().field("number", number).field("name", t.plan.name).field("closed", t.line.closed);
+  w.field("length", c.length(t.line.length())).field("thickness_mm", t.plan.thickness);
+  write_scheme(w, t.scheme);
+  w.field("definition", t.definition);
+  w.key("curve").begin_object().field("plan_name", t.plan.curve).field("name", t.curve);
+  w.field("source", t.curve_source).field("thickness_factor", t.thickness_factor).end_object();
+  w.key("worst_station");
+  if (t.worst >= 0)
+    w.value(t.stations[static_cast<std::size_t>(t.worst)].station.id);
+  else
+    w.null();
+  w.key("stations").begin_array();
+  for (const auto& s : t.stations) write_station(w, c, t, s);
+  w.end_array().end_object();
+}
+
+}  // namespace
+
+std::string format_results_json(const Assessment& a, const Provenance& p, LengthUnit out_unit) {
+  const Context c{a, mm_per(out_unit)};
+  JsonWriter w;
+  w.begin_object().field("schema_version", kResultsSchemaVersion);
+  write_run(w, c, out_unit);
+  write_provenance(w, p);
+  w.key("toes").begin_array();
+  for (std::size_t t = 0; t < a.toes.size(); ++t) write_toe(w, c, static_cast<int>(t + 1), a.toes[t]);
+  w.end_array().end_object();
+  return w.text();
+}
+
+}  // namespace toehold
