@@ -1,6 +1,7 @@
 #include "toehold/nominal/nominal_check.hpp"
 
 #include "toehold/common/error.hpp"
+#include "toehold/common/name_table.hpp"
 
 #include <array>
 #include <cmath>
@@ -26,24 +27,6 @@ std::string short_number(double v) {
   char buffer[32];
   std::snprintf(buffer, sizeof buffer, "%.3g", v);
   return buffer;
-}
-
-template <class E, std::size_t N>
-E parse_from(const std::array<std::pair<const char*, E>, N>& table, std::string_view text, const std::string& where,
-             const char* kind) {
-  std::string spellings;
-  for (const auto& [name, value] : table) {
-    if (text == name) return value;
-    spellings += (spellings.empty() ? "'" : ", '") + std::string(name) + "'";
-  }
-  throw Error(where + ": unknown " + kind + " '" + std::string(text) + "'; use one of " + spellings);
-}
-
-template <class E, std::size_t N>
-std::string name_in(const std::array<std::pair<const char*, E>, N>& table, E value) {
-  for (const auto& [name, v] : table)
-    if (v == value) return name;
-  return "?";
 }
 
 constexpr std::array<std::pair<const char*, Interaction>, 2> kInteractions{{

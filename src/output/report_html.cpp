@@ -248,6 +248,11 @@ std::vector<std::size_t> critical_stations(const ToeResult& toe, int how_many) {
     return toe.stations[l].utilization > toe.stations[r].utilization;
   });
   if (how_many >= 0 && order.size() > static_cast<std::size_t>(how_many)) order.resize(static_cast<std::size_t>(how_many));
+  for (int id : toe.plan.report_stations)  // stations the plan names, after the worst ones, each once
+    for (std::size_t i = 0; i < toe.stations.size(); ++i)
+      if (toe.stations[i].station.id == id && toe.stations[i].ok() &&
+          std::find(order.begin(), order.end(), i) == order.end())
+        order.push_back(i);
   return order;
 }
 

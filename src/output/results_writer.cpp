@@ -8,6 +8,7 @@
 #include "toehold/output/paraview_script.hpp"
 #include "toehold/output/provenance.hpp"
 #include "toehold/output/report_html.hpp"
+#include "toehold/output/svg_plot.hpp"
 
 #include <filesystem>
 #include <fstream>
@@ -16,20 +17,6 @@
 namespace toehold {
 namespace detail {
 namespace {
-
-std::string xml_escaped(const std::string& text) {
-  std::string out;
-  for (char ch : text) {
-    switch (ch) {
-      case '&': out += "&amp;"; break;
-      case '<': out += "&lt;"; break;
-      case '>': out += "&gt;"; break;
-      case '"': out += "&quot;"; break;
-      default: out += ch;
-    }
-  }
-  return out;
-}
 
 void write_text(const std::string& text, const std::string& path) {
   std::ofstream out(path, std::ios::binary);

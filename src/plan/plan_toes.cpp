@@ -10,7 +10,9 @@ namespace toehold::plan_detail {
 namespace {
 
 // Keys that say where a toe is: given per toe, never in [toe_defaults].
-const std::vector<std::string_view> kLocationKeys{"name", "marker_array", "marker_value", "points", "closed"};
+// report_stations names stations of this toe, so it has no default either.
+const std::vector<std::string_view> kLocationKeys{"name", "marker_array", "marker_value", "points", "closed",
+                                                  "report_stations"};
 const std::vector<std::string_view> kSettingKeys{"weld_regions",  "weld_point",   "thickness", "spacing",
                                                  "hot_spot_type", "scheme",       "distances", "factor",
                                                  "definition",    "detail_class", "curve",     "thickness_exponent",
@@ -166,6 +168,7 @@ void read_assessment(const Context& ctx, const Fields& f, ToePlan& toe) {
   } else {
     record(ctx, toe, "definition = \"perpendicular\" (the normal stress across the toe)");
   }
+  toe.report_stations = f.integers("report_stations").value_or(std::vector<int>{});
   toe.detail_class = f.text("detail_class").value_or("");
   toe.curve = f.need_text("curve", "name the S-N curve of the detail, e.g. \"IIW FAT 100\"");
   if (std::optional<double> n = f.number("thickness_exponent")) {

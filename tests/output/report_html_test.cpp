@@ -89,6 +89,15 @@ TEST_F(SampleReport, CriticalStationsAreTheWorstWithAResult) {
   EXPECT_EQ(html.find("id=\"detail-toe-2-station-2\""), std::string::npos);
 }
 
+TEST_F(SampleReport, StationsThePlanNamesAreDetailedToo) {
+  // Toe 1: the worst one is station 1; the plan also names station 2 (the best) and station 2 again.
+  Assessment named = a;
+  named.toes[0].plan.report_stations = {2, 2};
+  EXPECT_EQ(critical_stations(named.toes[0], 1), (std::vector<std::size_t>{0, 1}));
+  const std::string text = format_report_html(named, collect_provenance(named), LengthUnit::mm);
+  EXPECT_NE(text.find("id=\"detail-toe-1-station-2\""), std::string::npos);
+}
+
 TEST_F(SampleReport, CriticalStationShowsReadoutAndSnDiagram) {
   EXPECT_NE(html.find("Read-out path of station 1"), std::string::npos);
   EXPECT_NE(html.find("S-N diagram, IIW FAT 90"), std::string::npos);

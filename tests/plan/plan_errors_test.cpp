@@ -62,7 +62,8 @@ TEST(PlanErrors, BasePlanIsValid) { EXPECT_EQ(error_of(edited({})), "no error");
 TEST(PlanErrors, UnknownKeyListsTheKnownOnes) {
   EXPECT_EQ(error_of(edited({{15, "thicknes = 12"}})),
             "plan.toml line 15: toe 'north': unknown key 'thicknes'; known keys: name, marker_array, marker_value, "
-            "points, closed, weld_regions, weld_point, thickness, spacing, hot_spot_type, scheme, distances, factor, "
+            "points, closed, report_stations, weld_regions, weld_point, thickness, spacing, hot_spot_type, scheme, "
+            "distances, factor, "
             "definition, detail_class, curve, thickness_exponent, mean_stress");
   EXPECT_EQ(error_of(edited({{5, "stres = \"stress\""}})),
             "plan.toml line 5: [model]: unknown key 'stres'; known keys: file, length_unit, stress_unit, stress, "

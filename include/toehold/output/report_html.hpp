@@ -20,7 +20,8 @@ inline constexpr int kCriticalStationsPerToe = 3;
 std::string format_report_html(const Assessment& a, const Provenance& p, LengthUnit out_unit);
 
 // Indices into toe.stations of the stations with a result and the largest utilization, worst first, at most
-// `how_many` (ties: lower index first).
+// `how_many` (ties: lower index first), followed by the stations with a result that the plan names in the toe's
+// report_stations (by station id), each once.
 std::vector<std::size_t> critical_stations(const ToeResult& toe, int how_many);
 
 }  // namespace toehold

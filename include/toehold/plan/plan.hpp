@@ -84,6 +84,7 @@ struct ToePlan {
   std::string detail_class;             // DNV detail class for the effective hot-spot stress factor, "" if none
   std::string curve;                    // S-N curve name from the catalogue, e.g. "IIW FAT 100"
   std::optional<double> thickness_exponent;  // IIW thickness correction exponent n; none = no correction
+  std::vector<int> report_stations;     // station ids the report details besides the worst few of the toe
   // series/unit_cases/blocks: IIW 2016 sec. 3.5.3 mean-stress enhancement f(R) case; none = no correction.
   std::optional<IiwMeanStressCase> mean_stress;
   // series/unit_cases/blocks: allowable Miner sum for this toe: requirement.damage_limit when given, else 0.5
