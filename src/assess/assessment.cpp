@@ -30,6 +30,12 @@ void finish_toe(PlacedToe& toe, Assessment& out) {
       r.worst = static_cast<int>(i);
   }
   if (r.worst < 0) out.warnings.push_back("toe '" + r.plan.name + "': no station has a result");
+  const auto noted = std::count_if(r.stations.begin(), r.stations.end(), [](const auto& s) { return !s.notes.empty(); });
+  const auto first = std::find_if(r.stations.begin(), r.stations.end(), [](const auto& s) { return !s.notes.empty(); });
+  if (noted > 0)
+    out.warnings.push_back("toe '" + r.plan.name + "': " + std::to_string(noted) +
+                           " stations carry remarks (report.html, results.json), e.g. station " +
+                           std::to_string(first->station.id) + ": " + first->notes.front());
 }
 
 }  // namespace

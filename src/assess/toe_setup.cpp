@@ -1,6 +1,7 @@
 #include "internal.hpp"
 
 #include "toehold/common/error.hpp"
+#include "toehold/toe/fitness.hpp"
 #include "toehold/toe/surface_walk.hpp"
 
 #include <vtkCellData.h>
@@ -75,6 +76,37 @@ std::string at_mm(const char* what, double d) {
   return os.str();
 }
 
+// True when a cell that shares a point with `cell` is a weld cell (the grid's point links must be built).
+bool touches_weld(vtkUnstructuredGrid* grid, const WeldSide& weld, long long cell) {
+  vtkIdType n = 0;
+  const vtkIdType* pts = nullptr;
+  grid->GetCellPoints(cell, n, pts);
+  for (vtkIdType i = 0; i < n; ++i) {
+    vtkIdType count = 0;
+    vtkIdType* cells = nullptr;
+    grid->GetPointCells(pts[i], count, cells);
+    for (vtkIdType k = 0; k < count; ++k)
+      if (weld.is_weld_cell(cells[k])) return true;
+  }
+  return false;
+}
+
+// The mesh-fitness checks that fail (toe/fitness.hpp) and read-out cells that touch the weld, as station notes.
+void add_fitness_notes(const ModelGeometry& g, const ReadoutScheme& scheme, const WeldSide& weld, double thickness,
+                       PlacedStation& placed) {
+  StationResult& r = placed.result;
+  std::vector<long long> cells;
+  for (const Host& h : placed.hosts) cells.push_back(h.cell);
+  const long long toe_cell = g.surface.facets()[static_cast<std::size_t>(r.station.facet)].owner;
+  for (const FitnessCheck& c : check_station_fitness(g.mesh, scheme, thickness, r.station.frame.readout, toe_cell, cells))
+    if (!c.passed) r.notes.push_back("mesh check '" + c.name + "' fails: " + c.detail);
+  if (!weld.has_regions()) return;
+  for (std::size_t k = 0; k < cells.size(); ++k)
+    if (touches_weld(g.mesh.grid(), weld, cells[k]))
+      r.notes.push_back(at_mm("lies in a cell that touches the weld: nodal-averaged stresses there mix weld and plate",
+                              r.points[k].distance));
+}
+
 PlacedStation place_station(const ModelGeometry& g, const Station& station, const ReadoutScheme& scheme,
                             const WeldSide& weld, double thickness) {
   PlacedStation placed;
@@ -87,11 +119,16 @@ PlacedStation place_station(const ModelGeometry& g, const Station& station, cons
   const Walk walk = walk_surface(g.surface, weld, station.facet, station.x, station.frame.readout, scheme.distances);
   r.path = walk.path;
   const double tolerance = 0.05 * thickness;
+  const auto refuse_weld = [&weld](long long cell) { return weld.is_weld_cell(cell); };
   for (const SurfacePoint& target : walk.targets) {
-    const auto host = g.locator.locate(target.x, tolerance);
+    auto host = g.locator.locate(target.x, tolerance);
     if (!host) {
       r.problem = at_mm("lies off the model", target.distance);
       break;
+    }
+    if (weld.is_weld_cell(host->cell)) {  // on the face between weld and plate cells the plate cell is the host
+      const auto plate = g.locator.locate(target.x, tolerance, refuse_weld);
+      if (plate && plate->distance <= 1e-9 * thickness) host = plate;
     }
     if (weld.is_weld_cell(host->cell)) {
       r.problem = at_mm(("falls in weld cell " + std::to_string(host->cell)).c_str(), target.distance);
@@ -107,6 +144,7 @@ PlacedStation place_station(const ModelGeometry& g, const Station& station, cons
     placed.hosts.push_back(*host);
   }
   if (r.problem.empty() && !walk.stop_reason.empty()) r.problem = walk.stop_reason;
+  if (r.problem.empty()) add_fitness_notes(g, scheme, weld, thickness, placed);
   return placed;
 }
 
@@ -131,6 +169,7 @@ PlacedToe place_toe(const ModelGeometry& g, const ToePlan& toe, const std::strin
                                             : make_scheme(toe.scheme, toe.type, toe.thickness);
   r.line = toe_line(g, toe);
   const WeldSide weld = weld_side(g, toe, region_array);
+  if (weld.has_regions() && g.mesh.grid()->GetCellLinks() == nullptr) g.mesh.grid()->BuildLinks();
   const std::vector<Station> stations = make_stations(g.surface, r.line, weld, toe.spacing, toe_label(toe));
   for (const Station& s : stations) placed.stations.push_back(place_station(g, s, r.scheme, weld, toe.thickness));
   std::ostringstream os;
