@@ -25,6 +25,7 @@ struct Case {
   Eigen::Matrix3d rotation = Eigen::Matrix3d::Identity();
   Vec3 shift = Vec3::Zero();
   bool si_units = false;  // model written in m and Pa
+  int ny = 24;            // bricks across the toe (2.5 mm each by default)
 };
 
 double distance_from_toe(const Case& c, const Vec3& x) { return c.mirrored ? 40.0 - x.y() : x.y() - 20.0; }
@@ -41,7 +42,7 @@ Tensor local_stress(const Case& c, double d, bool step_b) {
 }
 
 std::string write_model(const Case& c, const test::TempDir& dir) {
-  auto grid = test::make_box_grid(test::GridSpec{60, 60, 10, 12, 24, 4, c.cell});
+  auto grid = test::make_box_grid(test::GridSpec{60, 60, 10, 12, c.ny, 4, c.cell});
   const double length = c.si_units ? 1e-3 : 1.0, stress = c.si_units ? 1e6 : 1.0;
   auto field = [&](bool step_b) {
     return [&c, step_b, stress](const Vec3& x) {
@@ -173,6 +174,23 @@ TEST(Assessment, StationFrameLiesInThePlateSurfaceAwayFromTheWeld) {
     EXPECT_CLOSE(s.station.frame.readout.y(), 1.0, 1e-12);
     EXPECT_CLOSE(std::abs(s.station.frame.tangent.x()), 1.0, 1e-12);
   }
+}
+
+// IIW 2016 sec. 3.3 (from memory): the fine-mesh scheme wants elements no longer than 0.4t = 4 mm at the toe; 10 mm
+// elements give every station a remark, and the console warnings say so.
+TEST(Assessment, CoarseMeshAtTheToeGivesEveryStationARemark) {
+  Case c;
+  c.ny = 6;
+  const Assessment a = assess(c);
+  for (const StationResult& s : a.toes[0].stations) {
+    ASSERT_FALSE(s.notes.empty()) << "station " << s.station.id;
+    EXPECT_EQ(s.notes.front().rfind("mesh check 'element size' fails: element at the toe is 10 mm long", 0), 0u)
+        << s.notes.front();
+  }
+  bool warned = false;
+  for (const std::string& w : a.warnings) warned = warned || w.find("13 stations carry remarks") != std::string::npos;
+  EXPECT_TRUE(warned);
+  for (const StationResult& s : assess(Case{}).toes[0].stations) EXPECT_TRUE(s.notes.empty()) << s.notes.front();
 }
 
 TEST(Assessment, MarkerWithNoNodesIsAnErrorNamingToeAndArray) {
