@@ -15,6 +15,8 @@
 namespace toehold {
 namespace {
 
+using test::error_of;
+
 using test::TempDir;
 
 const std::string kDir = std::string(TOEHOLD_SOURCE_DIR) + "/meshes/calculix/";
@@ -31,15 +33,6 @@ std::string write_lines(const TempDir& dir, const std::string& name, const std::
   std::ofstream out(path);
   for (const std::string& l : lines) out << l << "\n";
   return path;
-}
-
-std::string error_of(const std::function<void()>& f) {
-  try {
-    f();
-  } catch (const Error& e) {
-    return e.what();
-  }
-  return "no error";
 }
 
 TEST(FrdErrors, TruncatedFileNamesTheBlockAndLine) {

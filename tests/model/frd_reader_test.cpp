@@ -24,6 +24,8 @@
 namespace toehold {
 namespace {
 
+using test::error_of;
+
 const std::string kDir = std::string(TOEHOLD_SOURCE_DIR) + "/meshes/calculix/";
 
 class QuietReporter final : public Reporter {
@@ -228,15 +230,6 @@ TEST(FrdReader, StepsAreListedAndSelected) {
     for (vtkIdType p = 0; p < s->GetNumberOfTuples(); ++p) EXPECT_CLOSE(s->GetComponent(p, 0), traction, 1e-4);
   }
   EXPECT_EQ(read_frd(file, 0).element_types, (std::map<std::string, long long>{{"6-node wedge", 16}, {"8-node hexahedron", 8}}));
-}
-
-std::string error_of(const std::function<void()>& f) {
-  try {
-    f();
-  } catch (const Error& e) {
-    return e.what();
-  }
-  return "no error";
 }
 
 TEST(FrdReader, StepThatDoesNotExistNamesTheSteps) {

@@ -19,6 +19,8 @@
 namespace toehold {
 namespace {
 
+using test::error_of;
+
 using test::GridCell;
 using test::GridSpec;
 
@@ -74,15 +76,6 @@ SectionSpec far_field(double x) {
   s.point_mm = Vec3(x, 20.0, 5.0);
   s.normal = Vec3::UnitX();
   return s;
-}
-
-std::string error_of(const std::function<void()>& f) {
-  try {
-    f();
-  } catch (const Error& e) {
-    return e.what();
-  }
-  return "no error";
 }
 
 // Hand calculation [D] for the section x = const far from the toe (the concentration is zero there):

@@ -16,14 +16,7 @@
 namespace toehold::nominal {
 namespace {
 
-std::string error_of(const std::function<void()>& f) {
-  try {
-    f();
-  } catch (const Error& e) {
-    return e.what();
-  }
-  return "no error";
-}
+using test::error_of;
 
 RangeRequirement cycles(double n, double gamma_m = 1.0, double gamma_f = 1.0) {
   RangeRequirement r;

@@ -19,6 +19,8 @@ namespace fs = std::filesystem;
 namespace toehold::test {
 namespace {
 
+using test::error_of;
+
 void write_text(const std::string& path, const std::string& text) {
   std::ofstream out(path);
   out << text;
@@ -44,15 +46,6 @@ void make_old_results(const std::string& path) {
   OutputFolder old(path);
   write_text(old.path_for("stations.csv"), "old results\r\n");
   old.commit();
-}
-
-std::string error_of(const std::function<void()>& f) {
-  try {
-    f();
-  } catch (const Error& e) {
-    return e.what();
-  }
-  return "no error";
 }
 
 TEST(OutputFolder, FilesAppearOnlyAtCommit) {

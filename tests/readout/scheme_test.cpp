@@ -8,14 +8,7 @@
 namespace toehold {
 namespace {
 
-std::string error_of(const std::function<void()>& f) {
-  try {
-    f();
-  } catch (const Error& e) {
-    return e.what();
-  }
-  return "(no error)";
-}
+using test::error_of;
 
 }  // namespace
 

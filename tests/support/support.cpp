@@ -1,5 +1,7 @@
 #include "support/support.hpp"
 
+#include "toehold/common/error.hpp"
+
 #include <algorithm>
 #include <atomic>
 #include <cmath>
@@ -16,6 +18,15 @@ namespace toehold::test {
   os << actual << " differs from " << expected << " by " << std::abs(actual - expected) << " (allowed "
      << tol * scale << ")";
   return ::testing::AssertionFailure() << os.str();
+}
+
+std::string error_of(const std::function<void()>& f) {
+  try {
+    f();
+  } catch (const Error& e) {
+    return e.what();
+  }
+  return "no error";
 }
 
 TempDir::TempDir() {

@@ -4,6 +4,7 @@
 #include <gtest/gtest.h>
 
 #include <filesystem>
+#include <functional>
 #include <string>
 
 namespace toehold::test {
@@ -12,6 +13,9 @@ namespace toehold::test {
 ::testing::AssertionResult near(double actual, double expected, double tol);
 
 #define EXPECT_CLOSE(actual, expected, tol) EXPECT_TRUE(::toehold::test::near((actual), (expected), (tol)))
+
+// The message of the toehold::Error that `f` throws, or "no error". For checking messages word for word.
+std::string error_of(const std::function<void()>& f);
 
 // A fresh empty folder under the system temp dir, removed when the object goes away.
 class TempDir {
