@@ -336,7 +336,8 @@ Plan parse(const std::string& text, const std::string& path) {
   const toml::table root = parse_toml(text, path);
   Fields top(path, root, "", "", false);
   top.check_known(
-      {"title", "model", "step", "loading", "block", "curve", "toe_defaults", "toe", "requirement", "output"});
+      {"title", "model", "step", "loading", "block", "curve", "material", "toe_defaults", "toe", "requirement",
+       "output"});
   plan.title = top.text("title").value_or("");
   plan.model = read_model(ctx, root);
   std::vector<unsigned> step_lines;
@@ -344,7 +345,8 @@ Plan parse(const std::string& text, const std::string& path) {
   plan.loading = read_loading(ctx, root, step_lines, plan.steps);
   ctx.kind = plan.loading.kind;
   plan.curves = read_curves(ctx, root);
-  plan.toes = read_toes(ctx, root, plan.model);
+  plan.materials = read_materials(ctx, root);
+  plan.toes = read_toes(ctx, root, plan.model, plan.materials);
   plan.requirement = read_requirement(ctx, root, plan.loading);
   resolve_damage_limits(ctx, plan);
   plan.output_folder = read_output(ctx, root);

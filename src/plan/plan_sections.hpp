@@ -3,6 +3,7 @@
 #pragma once
 
 #include <filesystem>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -42,6 +43,14 @@ std::vector<CurvePlan> read_curves(const Context& ctx, const toml::table& root);
 // Checks every toe's curve name and sets ToePlan::damage_limit (recording the defaults applied).
 void resolve_damage_limits(const Context& ctx, Plan& plan);
 
-std::vector<ToePlan> read_toes(const Context& ctx, const toml::table& root, const ModelPlan& model);
+// The [[material]] tables (plan_nominal.cpp).
+std::vector<MaterialPlan> read_materials(const Context& ctx, const toml::table& root);
+
+// The [toe.nominal] table of one toe, or none when the toe has none (plan_nominal.cpp). `f` reads the [[toe]].
+std::optional<ToeNominalPlan> read_toe_nominal(const Context& ctx, const Fields& f, const ToePlan& toe,
+                                               const std::vector<MaterialPlan>& materials);
+
+std::vector<ToePlan> read_toes(const Context& ctx, const toml::table& root, const ModelPlan& model,
+                               const std::vector<MaterialPlan>& materials);
 
 }  // namespace toehold::plan_detail

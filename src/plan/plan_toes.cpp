@@ -10,9 +10,9 @@ namespace toehold::plan_detail {
 namespace {
 
 // Keys that say where a toe is: given per toe, never in [toe_defaults].
-// report_stations names stations of this toe, so it has no default either.
-const std::vector<std::string_view> kLocationKeys{"name", "marker_array", "marker_value", "points", "closed",
-                                                  "report_stations"};
+// report_stations names stations of this toe, and the [toe.nominal] table belongs to one toe: no defaults either.
+const std::vector<std::string_view> kLocationKeys{"name",   "marker_array",    "marker_value", "points",
+                                                  "closed", "report_stations", "nominal"};
 const std::vector<std::string_view> kSettingKeys{"weld_regions",  "weld_point",   "thickness", "spacing",
                                                  "hot_spot_type", "scheme",       "distances", "factor",
                                                  "definition",    "detail_class", "curve",     "thickness_exponent",
@@ -180,7 +180,8 @@ void read_assessment(const Context& ctx, const Fields& f, ToePlan& toe) {
   read_mean_stress(ctx, f, toe);
 }
 
-ToePlan read_toe(const Context& ctx, const Fields& f, const ModelPlan& model) {
+ToePlan read_toe(const Context& ctx, const Fields& f, const ModelPlan& model,
+                 const std::vector<MaterialPlan>& materials) {
   ToePlan toe;
   toe.line = static_cast<int>(f.line());
   toe.name = f.need_text("name", "give each toe a unique name (it labels every output)");
@@ -189,12 +190,14 @@ ToePlan read_toe(const Context& ctx, const Fields& f, const ModelPlan& model) {
   read_sizes(ctx, f, toe);
   read_scheme(ctx, f, toe);
   read_assessment(ctx, f, toe);
+  toe.nominal = read_toe_nominal(ctx, f, toe, materials);
   return toe;
 }
 
 }  // namespace
 
-std::vector<ToePlan> read_toes(const Context& ctx, const toml::table& root, const ModelPlan& model) {
+std::vector<ToePlan> read_toes(const Context& ctx, const toml::table& root, const ModelPlan& model,
+                               const std::vector<MaterialPlan>& materials) {
   const toml::table* defaults = read_defaults(ctx, root);
   const std::vector<const toml::table*> tables = section_array(ctx, root, "toe");
   if (tables.empty())
@@ -210,7 +213,7 @@ std::vector<ToePlan> read_toes(const Context& ctx, const toml::table& root, cons
     if (const auto seen = lines.find(name); seen != lines.end())
       f.fail(" is defined twice (first at line " + std::to_string(seen->second) + "); give each toe its own name");
     lines.emplace(name, f.line());
-    toes.push_back(read_toe(ctx, f, model));
+    toes.push_back(read_toe(ctx, f, model, materials));
   }
   return toes;
 }

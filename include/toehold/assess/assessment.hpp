@@ -2,6 +2,8 @@
 // load step, range, allowable range, utilization and life. The outputs layer writes these; nothing here prints.
 #pragma once
 
+#include "toehold/assess/shell_station_info.hpp"
+#include "toehold/assess/through_thickness_result.hpp"
 #include "toehold/common/reporter.hpp"
 #include "toehold/common/tensor.hpp"
 #include "toehold/fatigue/miner.hpp"
@@ -13,6 +15,7 @@
 
 #include <array>
 #include <limits>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -58,6 +61,9 @@ struct StationResult {
   double equivalent_range = 0.0;       // equivalent constant-amplitude range at 2e6 cycles, MPa (see allowable)
   double cycles_per_repeat = 0.0;      // counted cycles in one repeat (half cycles count 0.5)
   std::vector<CycleDamage> governing;  // the most damaging cycles, most damaging first (ranges as counted, MPa)
+
+  std::optional<ThroughThicknessResult> through_thickness;  // when the toe asks for linearization
+  std::optional<ShellStationInfo> shell;                    // shell models only
 
   bool ok() const { return problem.empty(); }
   bool exceeds() const { return ok() && utilization > 1.0; }

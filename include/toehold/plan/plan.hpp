@@ -7,6 +7,7 @@
 #include "toehold/fatigue/corrections.hpp"
 #include "toehold/fatigue/sn_curve.hpp"
 #include "toehold/model/stress_field.hpp"
+#include "toehold/plan/nominal_plan.hpp"
 #include "toehold/readout/scheme.hpp"
 
 #include <optional>
@@ -90,6 +91,7 @@ struct ToePlan {
   // series/unit_cases/blocks: allowable Miner sum for this toe: requirement.damage_limit when given, else 0.5
   // (IIW 2016 sec. 4.3.1) for IIW and user curves and 1.0 for EN 1993-1-9 and DNVGL-RP-C203 curves.
   double damage_limit = 0.5;
+  std::optional<ToeNominalPlan> nominal;  // [toe.nominal]: the nominal-stress method beside the hot-spot one
 };
 
 // What the joint must achieve.
@@ -111,6 +113,7 @@ struct Plan {
   LoadingPlan loading;
   std::vector<ToePlan> toes;
   std::vector<CurvePlan> curves;   // user-defined curves, in plan order
+  std::vector<MaterialPlan> materials;  // analyst-defined materials ([[material]]), in plan order
   RequirementPlan requirement;
   std::string output_folder;       // resolved; the command line may override it
   std::vector<std::string> defaults_applied;  // "toe 'north': spacing = 0 (a station at every toe node)", ...
