@@ -62,7 +62,7 @@ TEST(PlanErrors, BasePlanIsValid) { EXPECT_EQ(error_of(edited({})), "no error");
 TEST(PlanErrors, UnknownKeyListsTheKnownOnes) {
   EXPECT_EQ(error_of(edited({{15, "thicknes = 12"}})),
             "plan.toml line 15: toe 'north': unknown key 'thicknes'; known keys: name, marker_array, marker_value, "
-            "points, closed, report_stations, weld_regions, weld_point, thickness, spacing, hot_spot_type, scheme, "
+            "points, closed, report_stations, nominal, weld_regions, weld_point, thickness, spacing, hot_spot_type, scheme, "
             "distances, factor, "
             "definition, detail_class, curve, thickness_exponent, mean_stress");
   EXPECT_EQ(error_of(edited({{5, "stres = \"stress\""}})),
@@ -70,7 +70,7 @@ TEST(PlanErrors, UnknownKeyListsTheKnownOnes) {
             "stress_components, order, region_array");
   EXPECT_EQ(error_of("titel = \"x\"\n" + edited({})),
             "plan.toml line 1: unknown top-level key 'titel'; known keys: title, model, step, loading, block, curve, "
-            "toe_defaults, toe, requirement, output");
+            "material, toe_defaults, toe, requirement, output");
 }
 
 TEST(PlanErrors, WrongTypeNamesKeyAndBothTypes) {
