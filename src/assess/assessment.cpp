@@ -1,6 +1,7 @@
 #include "toehold/assess/assessment.hpp"
 
 #include "internal.hpp"
+#include "nominal_step.hpp"
 #include "toehold/common/error.hpp"
 #include "toehold/fatigue/sn_catalogue.hpp"
 #include "toehold/hotspot/definition.hpp"
@@ -85,6 +86,7 @@ std::vector<PlacedToe> place_toes(const Plan& plan, const detail::ModelGeometry&
       throw Error("toe '" + toe.name + "': " + e.what());
     }
     toes.push_back(detail::place_toe(geometry, toe, plan.model.region_array, reporter));
+    detail::prepare_nominal(plan, geometry, toes.back());
     ToeResult& r = toes.back().result;
     r.thickness_factor = factor;
     r.curve = curves.back().name();
@@ -107,9 +109,11 @@ StepValues read_steps(const Plan& plan, const Mesh& geometry, std::vector<Placed
   for (std::size_t k = 0; k < plan.steps.size(); ++k) {
     reporter.progress("load steps", k, plan.steps.size());
     const StressField field = steps.read(k);
-    for (std::size_t t = 0; t < toes.size(); ++t)
+    for (std::size_t t = 0; t < toes.size(); ++t) {
       for (std::size_t s = 0; s < toes[t].stations.size(); ++s)
         detail::record_step(toes[t].stations[s], toes[t].result.scheme, field, values[t][s]);
+      detail::record_nominal_step(toes[t], field);
+    }
   }
   reporter.progress("load steps", plan.steps.size(), plan.steps.size());
   out.input_files = steps.files();
@@ -177,6 +181,7 @@ Assessment run_assessment(const Plan& plan, Reporter& reporter) {
       StationResult& r = toes[t].stations[s].result;
       if (r.ok()) evaluate_station(plan, r, values[t][s], damage, definition, toe, curves[t], history);
     }
+    detail::evaluate_nominal(plan, toes[t], history);
     finish_toe(toes[t], out);
     out.toes.push_back(std::move(toes[t].result));
   }

@@ -27,9 +27,12 @@ struct PlacedStation {
   std::vector<Host> hosts;  // one per result.points entry
 };
 
+struct NominalToeState;  // nominal_step.hpp
+
 struct PlacedToe {
   ToeResult result;              // stations left empty; filled from `stations` at the end
   std::vector<PlacedStation> stations;
+  std::shared_ptr<NominalToeState> nominal;  // set by prepare_nominal when the toe has [toe.nominal]
 };
 
 // The geometry every toe is built on.
