@@ -1,11 +1,13 @@
 // The damage kinds of loading: a series of steps rainflow-counted, a block spectrum, and unit load cases scaled
 // by a load history. Every station ends with a Miner sum, life, equivalent range and its governing cycles.
 #include "internal.hpp"
+#include "parallel_for.hpp"
 
 #include "toehold/common/error.hpp"
 
 #include <cmath>
 #include <limits>
+#include <vector>
 
 namespace toehold::detail {
 namespace {
@@ -88,28 +90,39 @@ void evaluate_blocks(StationResult& r, const std::vector<InPlaneStress>& steps, 
   }
 }
 
+namespace {
+
+// The station's hot-spot value at every history row, rows split over threads (each row is computed alone, by
+// the same expression as a serial loop, so the values do not depend on the thread count).
+std::vector<double> unit_case_values(const std::vector<InPlaneStress>& cases, const std::vector<double>& h,
+                                     const ToeDamage& d, const LoadHistory& history, HotSpotDefinition definition) {
+  const std::size_t k_count = cases.size(), rows = history.rows();
+  std::vector<double> values(rows);
+  const bool linear = definition == HotSpotDefinition::perpendicular;
+  parallel_for(rows, 1 << 15, [&](std::size_t begin, std::size_t end) {
+    const double* c = history.factors.data() + begin * k_count;
+    for (std::size_t t = begin; t < end; ++t, c += k_count) {
+      if (linear) {  // the hot-spot history is sum_k c_k(t) h_k, no tensor per row
+        double value = 0.0;
+        for (std::size_t k = 0; k < k_count; ++k) value += c[k] * h[k];
+        values[t] = value;
+        continue;
+      }
+      InPlaneStress s;  // the definition applies to the combined in-plane stress of each row
+      for (std::size_t k = 0; k < k_count; ++k) s += c[k] * cases[k];
+      values[t] = d.scalar(s);
+    }
+  });
+  return values;
+}
+
+}  // namespace
+
 void evaluate_unit_cases(StationResult& r, const std::vector<InPlaneStress>& cases, const ToeDamage& d,
                          const LoadHistory& history, HotSpotDefinition definition) {
   record_hot_spots(r, cases, d.scalar);
-  const std::size_t k_count = cases.size(), rows = history.rows();
-  const double* c = history.factors.data();
   RainflowCounter counter;
-  if (definition == HotSpotDefinition::perpendicular) {
-    // Linear: the hot-spot history is sum_k c_k(t) h_k, no tensor per row.
-    const std::vector<double> h = r.hot_spot;
-    for (std::size_t t = 0; t < rows; ++t, c += k_count) {
-      double value = 0.0;
-      for (std::size_t k = 0; k < k_count; ++k) value += c[k] * h[k];
-      counter.push(value);
-    }
-  } else {
-    // The definition applies to the combined in-plane stress of each row.
-    for (std::size_t t = 0; t < rows; ++t, c += k_count) {
-      InPlaneStress s;
-      for (std::size_t k = 0; k < k_count; ++k) s += c[k] * cases[k];
-      counter.push(d.scalar(s));
-    }
-  }
+  counter.push(unit_case_values(cases, r.hot_spot, d, history, definition));
   const std::vector<StressCycle> cycles = counter.finish(d.residue);
   store(r, spectrum_damage(cycles, d.curve, d.rules), d);
 }

@@ -1,6 +1,7 @@
 // toehold_bench: times the assessment of a generated model against only reading its files with VTK, for a
 // series of load steps and for unit load cases times a long load history (docs/performance.md). The files go
-// into a temporary folder that is removed at the end. Not a test: run it by hand, in a Release build.
+// into a temporary folder that is removed at the end (or into --keep DIR, kept and reused by later runs of the
+// same size). Not a test: run it by hand, in a Release build.
 #include "toehold/assess/assessment.hpp"
 #include "toehold/common/reporter.hpp"
 #include "toehold/plan/plan.hpp"
@@ -27,6 +28,7 @@
 #include <filesystem>
 #include <fstream>
 #include <functional>
+#include <map>
 #include <string>
 #include <vector>
 
@@ -40,6 +42,9 @@ struct Size {
   int stations = 10000;            // stations along the toe (series)
   int uc_stations = 100;           // stations along the toe (unit cases)
   long rows = 1000000;             // rows of the unit-case load history
+  std::string only;                // "series" or "units": run that case alone; empty: both
+  std::string keep;                // folder to write the files into and keep (reused when already written)
+  bool phases = false;             // print the time of each phase of the assessment (from the reporter)
 };
 
 constexpr double kLx = 1000, kLy = 200, kLz = 20, kToeY = 100;
@@ -108,7 +113,7 @@ void write(vtkUnstructuredGrid* grid, const std::string& path) {
 
 double amplitude(int step) { return 80.0 * std::sin(0.37 * step) + 30.0 * std::sin(1.9 * step + 0.5); }
 
-std::string write_series(const fs::path& dir, const Size& n) {
+void write_series(const fs::path& dir, const Size& n) {
   auto grid = box(n);
   std::ofstream pvd(dir / "series.pvd");
   pvd << "<?xml version=\"1.0\"?>\n<VTKFile type=\"Collection\" version=\"0.1\">\n<Collection>\n";
@@ -119,7 +124,6 @@ std::string write_series(const fs::path& dir, const Size& n) {
     pvd << "<DataSet timestep=\"" << k << "\" file=\"" << file << "\"/>\n";
   }
   pvd << "</Collection>\n</VTKFile>\n";
-  return (dir / "series.pvd").string();
 }
 
 void write_unit_cases(const fs::path& dir, const Size& n) {
@@ -130,8 +134,10 @@ void write_unit_cases(const fs::path& dir, const Size& n) {
   write(grid, (dir / "unit_b.vtu").string());
   std::ofstream csv(dir / "history.csv");
   csv << "time,a,b\n";
-  for (long t = 0; t < n.rows; ++t)
-    csv << t << "," << std::sin(0.013 * t) + 0.3 * std::sin(0.31 * t) << "," << std::cos(0.007 * t) << "\n";
+  for (long t = 0; t < n.rows; ++t) {
+    const auto x = static_cast<double>(t);
+    csv << t << "," << std::sin(0.013 * x) + 0.3 * std::sin(0.31 * x) << "," << std::cos(0.007 * x) << "\n";
+  }
 }
 
 std::string plan_text(const std::string& model, const std::string& steps_and_loading, double spacing) {
@@ -178,10 +184,32 @@ void read_only(const std::vector<std::string>& files) {
   }
 }
 
-void assess(const std::string& text, const std::string& path) {
+// Prints the time since the start at each message and at the first and last progress report of each task, so
+// the phases of the assessment can be read off (--phases).
+class PhaseReporter final : public toehold::Reporter {
+public:
+  void info(const std::string& message) override { stamp(message); }
+  void warn(const std::string&) override {}
+  void progress(const std::string& what, std::size_t done, std::size_t total) override {
+    if (done == 0 && !started_[what]++) stamp(what + ": start");
+    if (done == total) stamp(what + ": done");
+  }
+
+private:
+  void stamp(const std::string& what) {
+    const double s = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0_).count();
+    std::printf("    %8.3f s  %s\n", s, what.c_str());
+    std::fflush(stdout);
+  }
+  std::chrono::steady_clock::time_point t0_ = std::chrono::steady_clock::now();
+  std::map<std::string, int> started_;
+};
+
+void assess(const std::string& text, const std::string& path, bool phases) {
   toehold::NullReporter quiet;
+  PhaseReporter timed;
   const toehold::Plan plan = toehold::parse_plan(text, path);
-  const toehold::Assessment a = toehold::run_assessment(plan, quiet);
+  const toehold::Assessment a = toehold::run_assessment(plan, phases ? static_cast<toehold::Reporter&>(timed) : quiet);
   std::printf("    %d stations, %d without result\n", a.stations(), a.stations_without_result());
   std::fflush(stdout);
 }
@@ -195,9 +223,17 @@ void report(const char* what, const Measured& read, const Measured& run) {
 
 Size parse_args(int argc, char** argv) {
   Size n;
-  for (int i = 1; i + 1 < argc; i += 2) {
+  for (int i = 1; i < argc; ++i) {
     const std::string key = argv[i];
-    const long v = std::atol(argv[i + 1]);
+    if (key == "--phases") {
+      n.phases = true;
+      continue;
+    }
+    if (i + 1 >= argc) throw std::runtime_error("option " + key + " needs a value");
+    const std::string text = argv[++i];
+    const long v = std::atol(text.c_str());
+    if (key == "--only" && text != "series" && text != "units")
+      throw std::runtime_error("--only takes series or units");
     if (key == "--nx") n.nx = int(v);
     else if (key == "--ny") n.ny = int(v);
     else if (key == "--nz") n.nz = int(v);
@@ -205,45 +241,87 @@ Size parse_args(int argc, char** argv) {
     else if (key == "--stations") n.stations = int(v);
     else if (key == "--uc-stations") n.uc_stations = int(v);
     else if (key == "--rows") n.rows = v;
+    else if (key == "--only") n.only = text;
+    else if (key == "--keep") n.keep = text;
+    else throw std::runtime_error("unknown option " + key);
   }
   return n;
+}
+
+// The size a kept folder was written for: its files are reused only by a run of the same size.
+std::string size_text(const Size& n, const char* what) {
+  return std::string(what) + " " + std::to_string(n.nx) + " " + std::to_string(n.ny) + " " + std::to_string(n.nz) +
+         " " + std::to_string(what[0] == 's' ? n.steps : n.rows);
+}
+
+bool already_written(const fs::path& dir, const std::string& stamp) {
+  std::ifstream in(dir / (stamp.substr(0, stamp.find(' ')) + ".size"));
+  std::string line;
+  return std::getline(in, line) && line == stamp;
+}
+
+void mark_written(const fs::path& dir, const std::string& stamp) {
+  std::ofstream(dir / (stamp.substr(0, stamp.find(' ')) + ".size")) << stamp << "\n";
+}
+
+void run_series(const fs::path& dir, const Size& n, bool keep) {
+  const std::string stamp = size_text(n, "series");
+  if (!keep || !already_written(dir, stamp)) {
+    write_series(dir, n);
+    if (keep) mark_written(dir, stamp);
+  }
+  std::vector<std::string> files;
+  for (int k = 0; k < n.steps; ++k) files.push_back((dir / ("step_" + std::to_string(k) + ".vtu")).string());
+  const std::string series = plan_text((dir / "series.pvd").string(),
+                                       "[[step]]\nname = \"t\"\npvd_steps = \"all\"\n[loading]\n"
+                                       "kind = \"series\"\n", kLx / n.stations);
+  const Measured read = in_child([&] { read_only(files); });
+  const Measured run = in_child([&] { assess(series, (dir / "series.toml").string(), n.phases); });
+  report("series", read, run);
+  if (!keep)
+    for (const auto& f : files) fs::remove(f);
+}
+
+void run_units(const fs::path& dir, const Size& n, bool keep) {
+  const std::string stamp = size_text(n, "units");
+  if (!keep || !already_written(dir, stamp)) {
+    write_unit_cases(dir, n);
+    if (keep) mark_written(dir, stamp);
+  }
+  const std::string units = plan_text((dir / "unit_a.vtu").string(),
+                                      "[[step]]\nname = \"a\"\n[[step]]\nname = \"b\"\nfile = \"unit_b.vtu\"\n"
+                                      "[loading]\nkind = \"unit-cases\"\nhistory = \"history.csv\"\n",
+                                      kLx / n.uc_stations);
+  const Measured read = in_child([&] { read_only({(dir / "unit_a.vtu").string(), (dir / "unit_b.vtu").string()}); });
+  const Measured run = in_child([&] { assess(units, (dir / "units.toml").string(), n.phases); });
+  report("unit cases", read, run);
 }
 
 }  // namespace
 
 int main(int argc, char** argv) {
-  const Size n = parse_args(argc, argv);
-  const fs::path dir = fs::temp_directory_path() / ("toehold-bench-" + std::to_string(getpid()));
+  Size n;
+  try {
+    n = parse_args(argc, argv);
+  } catch (const std::exception& e) {
+    std::fprintf(stderr, "toehold_bench: %s\n", e.what());
+    return 2;
+  }
+  const bool keep = !n.keep.empty();
+  const fs::path dir = keep ? fs::path(n.keep) : fs::temp_directory_path() / ("toehold-bench-" + std::to_string(getpid()));
   fs::create_directories(dir);
   std::printf("model: %d x %d x %d = %ld hex cells; series of %d steps, %d stations; unit cases: 2 x %ld rows, "
               "%d stations\n", n.nx, n.ny, n.nz, long(n.nx) * n.ny * n.nz, n.steps, n.stations, n.rows,
               n.uc_stations);
   std::fflush(stdout);
   try {
-    const std::string pvd = write_series(dir, n);
-    std::vector<std::string> files;
-    for (int k = 0; k < n.steps; ++k) files.push_back((dir / ("step_" + std::to_string(k) + ".vtu")).string());
-    const std::string series = plan_text(pvd, "[[step]]\nname = \"t\"\npvd_steps = \"all\"\n[loading]\n"
-                                              "kind = \"series\"\n", kLx / n.stations);
-    const Measured read = in_child([&] { read_only(files); });
-    const Measured run = in_child([&] { assess(series, (dir / "series.toml").string()); });
-    report("series", read, run);
-    for (const auto& f : files) fs::remove(f);
-
-    write_unit_cases(dir, n);
-    const std::string units = plan_text((dir / "unit_a.vtu").string(),
-                                        "[[step]]\nname = \"a\"\n[[step]]\nname = \"b\"\nfile = \"unit_b.vtu\"\n"
-                                        "[loading]\nkind = \"unit-cases\"\nhistory = \"history.csv\"\n",
-                                        kLx / n.uc_stations);
-    const Measured uc_read =
-        in_child([&] { read_only({(dir / "unit_a.vtu").string(), (dir / "unit_b.vtu").string()}); });
-    const Measured uc_run = in_child([&] { assess(units, (dir / "units.toml").string()); });
-    report("unit cases", uc_read, uc_run);
+    if (n.only != "units") run_series(dir, n, keep);
+    if (n.only != "series") run_units(dir, n, keep);
   } catch (const std::exception& e) {
     std::fprintf(stderr, "toehold_bench: %s\n", e.what());
-    fs::remove_all(dir);
+    if (!keep) fs::remove_all(dir);
     return 1;
   }
-  fs::remove_all(dir);
+  if (!keep) fs::remove_all(dir);
   return 0;
 }

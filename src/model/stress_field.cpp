@@ -3,6 +3,7 @@
 #include "toehold/common/error.hpp"
 #include "toehold/model/stress_layout.hpp"
 
+#include <vtkAOSDataArrayTemplate.h>
 #include <vtkCellData.h>
 #include <vtkDataArray.h>
 #include <vtkPointData.h>
@@ -45,18 +46,39 @@ std::string value_text(double v) {
   return v > 0 ? "inf" : "-inf";
 }
 
+// Calls visit(get) with get(i, c) = component c of tuple i as double: straight from memory for the usual
+// Float32/Float64 arrays (a million points and six components per load step), through GetComponent otherwise.
+template <class Visit>
+void with_values(vtkDataArray* a, Visit&& visit) {
+  const auto comps = static_cast<vtkIdType>(a->GetNumberOfComponents());
+  if (auto* f = vtkAOSDataArrayTemplate<float>::FastDownCast(a)) {
+    const float* p = f->GetPointer(0);
+    return visit([p, comps](vtkIdType i, int c) { return static_cast<double>(p[i * comps + c]); });
+  }
+  if (auto* d = vtkAOSDataArrayTemplate<double>::FastDownCast(a)) {
+    const double* p = d->GetPointer(0);
+    return visit([p, comps](vtkIdType i, int c) { return p[i * comps + c]; });
+  }
+  visit([a](vtkIdType i, int c) { return a->GetComponent(i, c); });
+}
+
 void check_finite(const Mesh& mesh, const Found& found) {
   const vtkIdType n = found.array->GetNumberOfTuples();
   const int comps = found.array->GetNumberOfComponents();
-  for (vtkIdType i = 0; i < n; ++i) {
-    for (int c = 0; c < comps; ++c) {
-      const double v = found.array->GetComponent(i, c);
-      if (std::isfinite(v)) continue;
-      throw Error(mesh.source() + ": array '" + found.array->GetName() + "' holds a non-finite value (" +
-                  value_text(v) + ") at " + entity(found.where) + " " + std::to_string(i) +
-                  "; fix the solver results or write them again");
+  with_values(found.array, [&](auto get) {
+    for (vtkIdType i = 0; i < n; ++i) {
+      bool finite = true;
+      for (int c = 0; c < comps; ++c) finite = finite && std::isfinite(get(i, c));
+      if (finite) continue;
+      for (int c = 0; c < comps; ++c) {
+        const double v = get(i, c);
+        if (std::isfinite(v)) continue;
+        throw Error(mesh.source() + ": array '" + found.array->GetName() + "' holds a non-finite value (" +
+                    value_text(v) + ") at " + entity(found.where) + " " + std::to_string(i) +
+                    "; fix the solver results or write them again");
+      }
     }
-  }
+  });
 }
 
 std::vector<std::string> component_names(vtkDataArray* array) {
@@ -86,18 +108,22 @@ std::vector<double> tensor_values(const Mesh& mesh, const StressSpec& spec, cons
   std::vector<double> out(static_cast<std::size_t>(n) * 6);
   if (a->GetNumberOfComponents() == 9) {
     // Row-major 3x3: symmetric part, (S_ij + S_ji) / 2.
-    for (vtkIdType i = 0; i < n; ++i) {
-      for (std::size_t k = 0; k < 6; ++k) {
-        const int r = kVoigtIndex[k][0], c = kVoigtIndex[k][1];
-        const double sym = 0.5 * (a->GetComponent(i, 3 * r + c) + a->GetComponent(i, 3 * c + r));
-        out[6 * static_cast<std::size_t>(i) + k] = sym * factor;
+    with_values(a, [&](auto get) {
+      for (vtkIdType i = 0; i < n; ++i) {
+        for (std::size_t k = 0; k < 6; ++k) {
+          const int r = kVoigtIndex[k][0], c = kVoigtIndex[k][1];
+          const double sym = 0.5 * (get(i, 3 * r + c) + get(i, 3 * c + r));
+          out[6 * static_cast<std::size_t>(i) + k] = sym * factor;
+        }
       }
-    }
+    });
     return out;
   }
   const StressLayout layout = six_component_layout(mesh, spec, a);
-  for (vtkIdType i = 0; i < n; ++i)
-    for (std::size_t k = 0; k < 6; ++k) out[6 * static_cast<std::size_t>(i) + k] = a->GetComponent(i, layout.source[k]) * factor;
+  with_values(a, [&](auto get) {
+    for (vtkIdType i = 0; i < n; ++i)
+      for (std::size_t k = 0; k < 6; ++k) out[6 * static_cast<std::size_t>(i) + k] = get(i, layout.source[k]) * factor;
+  });
   return out;
 }
 
@@ -129,8 +155,10 @@ StressField from_component_arrays(const Mesh& mesh, const StressSpec& spec, doub
   }
   const vtkIdType n = found[0].array->GetNumberOfTuples();
   std::vector<double> out(static_cast<std::size_t>(n) * 6);
-  for (vtkIdType i = 0; i < n; ++i)
-    for (std::size_t k = 0; k < 6; ++k) out[6 * static_cast<std::size_t>(i) + k] = found[k].array->GetComponent(i, 0) * factor;
+  for (std::size_t k = 0; k < 6; ++k)
+    with_values(found[k].array, [&](auto get) {
+      for (vtkIdType i = 0; i < n; ++i) out[6 * static_cast<std::size_t>(i) + k] = get(i, 0) * factor;
+    });
   return StressField(found[0].where, std::move(out));
 }
 

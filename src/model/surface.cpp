@@ -13,7 +13,10 @@
 #include <vtkStaticCellLocator.h>
 
 #include <algorithm>
+#include <bit>
 #include <cmath>
+#include <cstdint>
+#include <limits>
 #include <mutex>
 #include <numeric>
 #include <string>
@@ -132,48 +135,85 @@ private:
 };
 
 // Discontinuous (element-nodal) results duplicate a node once per cell. For the surface, coincident points are one
-// point: the lowest id among them. The cells keep their own copies, so stresses still come from the host cell.
+// point: the lowest id among them (-0.0 and 0.0 are the same place). The cells keep their own copies, so stresses
+// still come from the host cell. Found with an open-addressing hash of the exact coordinates, in id order.
 class CanonicalPoints {
 public:
   explicit CanonicalPoints(vtkUnstructuredGrid* grid) {
-    struct Keyed {
-      double x[3];
-      vtkIdType id;
-      bool operator<(const Keyed& o) const {
-        return std::tie(x[0], x[1], x[2], id) < std::tie(o.x[0], o.x[1], o.x[2], o.id);
-      }
-      bool same_place(const Keyed& o) const { return x[0] == o.x[0] && x[1] == o.x[1] && x[2] == o.x[2]; }
-    };
-    std::vector<Keyed> keyed(static_cast<std::size_t>(grid->GetNumberOfPoints()));
-    for (std::size_t i = 0; i < keyed.size(); ++i) {
-      grid->GetPoint(static_cast<vtkIdType>(i), keyed[i].x);
-      keyed[i].id = static_cast<vtkIdType>(i);
+    const auto n = static_cast<std::size_t>(grid->GetNumberOfPoints());
+    std::vector<std::array<double, 3>> x(n);
+    for (std::size_t i = 0; i < n; ++i) {
+      grid->GetPoint(static_cast<vtkIdType>(i), x[i].data());
+      for (double& v : x[i]) v += 0.0;  // -0.0 -> 0.0
     }
-    std::sort(keyed.begin(), keyed.end());
+    std::size_t size = 16;
+    while (size < 2 * n) size *= 2;
+    std::vector<long long> table(size, -1);
+    std::vector<long long> canon(n);
     bool any = false;
-    std::vector<long long> canon(keyed.size());
-    for (std::size_t i = 0; i < keyed.size(); ++i) {
-      const bool same = i > 0 && keyed[i].same_place(keyed[i - 1]);
-      canon[static_cast<std::size_t>(keyed[i].id)] = same ? canon[static_cast<std::size_t>(keyed[i - 1].id)] : keyed[i].id;
-      any = any || same;
+    for (std::size_t i = 0; i < n; ++i) {
+      std::size_t slot = hash(x[i]) & (size - 1);
+      while (table[slot] >= 0 && x[static_cast<std::size_t>(table[slot])] != x[i]) slot = (slot + 1) & (size - 1);
+      if (table[slot] < 0) table[slot] = static_cast<long long>(i);
+      canon[i] = table[slot];
+      any = any || canon[i] != static_cast<long long>(i);
     }
     if (any) canon_ = std::move(canon);
   }
-  bool any() const { return !canon_.empty(); }
   long long of(long long p) const { return canon_.empty() ? p : canon_[static_cast<std::size_t>(p)]; }
   const std::vector<long long>& table() const { return canon_; }
-  // The cell's point ids with each replaced by its canonical id (the grid's own array when there are no duplicates).
-  const vtkIdType* cell_points(vtkUnstructuredGrid* grid, vtkIdType cell, vtkIdType& npts) const {
-    const vtkIdType* pts = nullptr;
-    grid->GetCellPoints(cell, npts, pts);
-    if (canon_.empty()) return pts;
-    buffer_.assign(pts, pts + npts);
-    for (vtkIdType& p : buffer_) p = canon_[static_cast<std::size_t>(p)];
+
+private:
+  static std::size_t hash(const std::array<double, 3>& x) {
+    std::uint64_t h = 0x9e3779b97f4a7c15ull;
+    for (double v : x) {
+      h ^= std::bit_cast<std::uint64_t>(v) + 0x9e3779b97f4a7c15ull + (h << 6) + (h >> 2);
+      h *= 0xbf58476d1ce4e5b9ull;
+      h ^= h >> 31;
+    }
+    return static_cast<std::size_t>(h);
+  }
+  std::vector<long long> canon_;
+};
+
+// The cells' point ids read straight from the grid's cell array (32- or 64-bit storage), each replaced by its
+// canonical id. One buffer: not for concurrent use.
+class CellNodes {
+public:
+  CellNodes(vtkUnstructuredGrid* grid, const CanonicalPoints& canonical)
+      : cells_(grid->GetCells()), canonical_(canonical),
+        buffer_(static_cast<std::size_t>(std::max(grid->GetMaxCellSize(), 1))) {
+    if (cells_->IsStorage64Bit()) {
+      offsets64_ = cells_->GetOffsetsArray64()->GetPointer(0);
+      nodes64_ = cells_->GetConnectivityArray64()->GetPointer(0);
+    } else {
+      offsets32_ = cells_->GetOffsetsArray32()->GetPointer(0);
+      nodes32_ = cells_->GetConnectivityArray32()->GetPointer(0);
+    }
+  }
+  vtkIdType size(vtkIdType cell) const { return offset(cell + 1) - offset(cell); }
+  // The canonical point ids of `cell`; valid until the next call.
+  const vtkIdType* of(vtkIdType cell, vtkIdType& npts) const {
+    const vtkIdType begin = offset(cell);
+    npts = offset(cell + 1) - begin;
+    for (vtkIdType k = 0; k < npts; ++k)
+      buffer_[static_cast<std::size_t>(k)] = canonical_.of(node(begin + k));
     return buffer_.data();
   }
 
 private:
-  std::vector<long long> canon_;
+  vtkIdType offset(vtkIdType i) const {
+    return offsets64_ ? static_cast<vtkIdType>(offsets64_[i]) : static_cast<vtkIdType>(offsets32_[i]);
+  }
+  vtkIdType node(vtkIdType i) const {
+    return nodes64_ ? static_cast<vtkIdType>(nodes64_[i]) : static_cast<vtkIdType>(nodes32_[i]);
+  }
+  vtkCellArray* cells_;
+  const CanonicalPoints& canonical_;
+  const vtkTypeInt64* offsets64_ = nullptr;
+  const vtkTypeInt64* nodes64_ = nullptr;
+  const vtkTypeInt32* offsets32_ = nullptr;
+  const vtkTypeInt32* nodes32_ = nullptr;
   mutable std::vector<vtkIdType> buffer_;
 };
 
@@ -195,46 +235,60 @@ FaceKey face_key(const FaceTemplate& face, const vtkIdType* pts) {
   return key;
 }
 
-// Boundary faces: those whose corner set no other face has. Faces are bucketed by their smallest corner id
-// (flat arrays, linear time), and only faces in one bucket are compared. Returns face codes in cell order.
-std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates& templates,
-                                      const CanonicalPoints& canonical) {
+// A face filed under its smallest corner id: the other corners (sorted, -1 for a triangle's fourth) and its code.
+template <class Id>
+struct FiledFace {
+  std::array<Id, 3> rest;
+  Id code;
+  bool operator<(const FiledFace& o) const { return std::tie(rest, code) < std::tie(o.rest, o.code); }
+};
+
+// Boundary faces: those whose corner set no other face has. Faces are filed under their smallest corner id
+// (flat arrays, two passes over the cells in order, linear time) with their other corners, so each bucket is
+// compared on its own without going back to the cells. Id is int when the point and face numbers fit (half
+// the memory), else long long. Returns face codes in cell order.
+template <class Id>
+std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates& templates, const CellNodes& nodes) {
   const vtkIdType cells = grid->GetNumberOfCells();
   std::vector<long long> start(static_cast<std::size_t>(grid->GetNumberOfPoints()) + 1, 0);
-  vtkIdType npts = 0;
-  const vtkIdType* pts = nullptr;
   auto for_each_face = [&](auto&& visit) {
+    vtkIdType npts = 0;
     for (vtkIdType c = 0; c < cells; ++c) {
-      pts = canonical.cell_points(grid, c, npts);
+      const vtkIdType* pts = nodes.of(c, npts);
       const auto& faces = templates.of(c).faces;
-      for (std::size_t f = 0; f < faces.size(); ++f) visit(c, f, face_key(faces[f], pts)[0]);
+      for (std::size_t f = 0; f < faces.size(); ++f) visit(c, f, face_key(faces[f], pts));
     }
   };
-  for_each_face([&](vtkIdType, std::size_t, long long low) { ++start[static_cast<std::size_t>(low) + 1]; });
+  for_each_face([&](vtkIdType, std::size_t, const FaceKey& key) { ++start[static_cast<std::size_t>(key[0]) + 1]; });
   std::partial_sum(start.begin(), start.end(), start.begin());
-  std::vector<long long> bucket(static_cast<std::size_t>(start.back()));
-  std::vector<long long> fill(start.begin(), start.end() - 1);
-  for_each_face([&](vtkIdType c, std::size_t f, long long low) {
-    bucket[static_cast<std::size_t>(fill[static_cast<std::size_t>(low)]++)] = FaceCode::make(c, f);
-  });
+  std::vector<FiledFace<Id>> bucket(static_cast<std::size_t>(start.back()));
+  {
+    std::vector<long long> fill(start.begin(), start.end() - 1);
+    for_each_face([&](vtkIdType c, std::size_t f, const FaceKey& key) {
+      const auto at = static_cast<std::size_t>(fill[static_cast<std::size_t>(key[0])]++);
+      bucket[at] = {{static_cast<Id>(key[1]), static_cast<Id>(key[2]), static_cast<Id>(key[3])},
+                    static_cast<Id>(FaceCode::make(c, f))};
+    });
+  }
   std::vector<long long> out;
-  std::vector<std::pair<FaceKey, long long>> group;
   for (std::size_t b = 0; b + 1 < start.size(); ++b) {
-    group.clear();
-    for (long long i = start[b]; i < start[b + 1]; ++i) {
-      const long long code = bucket[static_cast<std::size_t>(i)];
-      pts = canonical.cell_points(grid, FaceCode::cell(code), npts);
-      group.emplace_back(face_key(templates.of(FaceCode::cell(code)).faces[FaceCode::face(code)], pts), code);
-    }
-    std::sort(group.begin(), group.end());
-    for (std::size_t i = 0; i < group.size(); ++i) {
-      const bool same_before = i > 0 && group[i - 1].first == group[i].first;
-      const bool same_after = i + 1 < group.size() && group[i + 1].first == group[i].first;
-      if (!same_before && !same_after) out.push_back(group[i].second);
+    const auto first = bucket.begin() + start[b], last = bucket.begin() + start[b + 1];
+    std::sort(first, last);
+    for (auto i = first; i != last; ++i) {
+      const bool same_before = i != first && (i - 1)->rest == i->rest;
+      const bool same_after = i + 1 != last && (i + 1)->rest == i->rest;
+      if (!same_before && !same_after) out.push_back(static_cast<long long>(i->code));
     }
   }
   std::sort(out.begin(), out.end());
   return out;
+}
+
+std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates& templates, const CellNodes& nodes) {
+  constexpr long long fits = std::numeric_limits<int>::max();
+  if (grid->GetNumberOfPoints() < fits && grid->GetNumberOfCells() < fits / kFaceBits)
+    return boundary_faces<int>(grid, templates, nodes);
+  return boundary_faces<long long>(grid, templates, nodes);
 }
 
 Vec3 facet_normal(vtkPoints* points, const std::array<long long, 4>& p) {
@@ -312,11 +366,12 @@ Surface::Surface(const Mesh& mesh) : mesh_(&mesh), index_(std::make_shared<Facet
   const Templates templates(grid, mesh.source());
   const CanonicalPoints canonical(grid);
   canonical_ = canonical.table();
+  const CellNodes nodes(grid, canonical);
   vtkIdType npts = 0;
   const vtkIdType* pts = nullptr;
-  for (long long code : boundary_faces(grid, templates, canonical)) {
+  for (long long code : boundary_faces(grid, templates, nodes)) {
     const vtkIdType cell = FaceCode::cell(code);
-    pts = canonical.cell_points(grid, cell, npts);
+    pts = nodes.of(cell, npts);
     add_face_facets(grid->GetPoints(), cell, npts, pts, templates.of(cell).faces[FaceCode::face(code)], facets_);
   }
   std::vector<int> count(static_cast<std::size_t>(grid->GetNumberOfPoints()), 0);

@@ -8,6 +8,8 @@
 
 #include <vtkIdList.h>
 #include <vtkNew.h>
+#include <vtkPoints.h>
+#include <vtkUnstructuredGrid.h>
 
 #include <Eigen/Geometry>
 #include <algorithm>
@@ -171,7 +173,7 @@ TEST_P(BoxSurface, RigidMotionRotatesNormals) {
 }
 
 INSTANTIATE_TEST_SUITE_P(Surface, BoxSurface, ::testing::ValuesIn(kExpected),
-                         [](const auto& info) { return test::to_string(info.param.cell); });
+                         [](const auto& param_info) { return test::to_string(param_info.param.cell); });
 
 long long point_at(vtkUnstructuredGrid* grid, const Vec3& x) {
   for (vtkIdType p = 0; p < grid->GetNumberOfPoints(); ++p)
@@ -232,6 +234,38 @@ TEST(Surface, LargeBoxHasTheHandCountedFacets) {
   const Mesh mesh = test::mesh_of(grid);
   const Surface surface(mesh);
   EXPECT_EQ(surface.facets().size(), 6u * 60 * 60 * 2);  // 2 triangles per brick face [D]
+}
+
+// Element-nodal file: two 10 mm hex8 bricks side by side (x 0..10 and 10..20), each with its own 8 points, so the
+// 4 points of the shared face x = 10 appear twice; one z = 0 corner is written as -0.0 in the second brick.
+// Hand count [D]: 2 bricks have 10 outside faces (the shared face is inside); each repeated point stands for
+// the lowest id at its place.
+TEST(Surface, RepeatedNodesAreOnePointWithTheLowestId) {
+  auto grid = vtkSmartPointer<vtkUnstructuredGrid>::New();
+  vtkNew<vtkPoints> points;
+  for (double x0 : {0.0, 10.0}) {
+    const double zero = x0 > 0 ? -0.0 : 0.0;
+    const double corner[8][3] = {{x0, 0, zero}, {x0 + 10, 0, 0}, {x0 + 10, 10, 0}, {x0, 10, 0},
+                                 {x0, 0, 10},   {x0 + 10, 0, 10}, {x0 + 10, 10, 10}, {x0, 10, 10}};
+    for (const auto& c : corner) points->InsertNextPoint(c);
+  }
+  grid->SetPoints(points);
+  for (vtkIdType first : {0, 8}) {
+    vtkIdType ids[8];
+    for (vtkIdType k = 0; k < 8; ++k) ids[k] = first + k;
+    grid->InsertNextCell(VTK_HEXAHEDRON, 8, ids);
+  }
+  const Mesh mesh = test::mesh_of(grid);
+  const Surface surface(mesh);
+  EXPECT_EQ(surface.facets().size(), 10u);
+  EXPECT_EQ(surface.canonical(8), 1);   // (10, 0, -0.0) is (10, 0, 0), point 1
+  EXPECT_EQ(surface.canonical(11), 2);  // (10, 10, 0)
+  EXPECT_EQ(surface.canonical(12), 5);  // (10, 0, 10)
+  EXPECT_EQ(surface.canonical(15), 6);  // (10, 10, 10)
+  EXPECT_EQ(surface.canonical(9), 9);   // (20, 0, 0) appears once
+  for (const Facet& f : surface.facets())
+    for (int k = 0; k < f.corner_count(); ++k) EXPECT_NE(f.points[static_cast<std::size_t>(k)], 8);
+  EXPECT_EQ(surface.facets_of_point(1).size(), 4u);  // bottom and front faces of both bricks
 }
 
 TEST(Surface, EmptyMeshIsRejected) {

@@ -1,0 +1,44 @@
+// A small private helper (src/assess): splits an index range into contiguous chunks run on std::threads.
+// Results do not depend on the number of threads as long as the body writes each index's result only from that
+// index (no shared accumulation); an exception from a chunk is rethrown after all threads have joined, the one
+// of the lowest chunk first, so errors are the same as in a serial loop.
+#pragma once
+
+#include <algorithm>
+#include <cstddef>
+#include <exception>
+#include <thread>
+#include <vector>
+
+namespace toehold::detail {
+
+// Threads to use: the hardware's (at least 1).
+inline std::size_t worker_count() { return std::max<std::size_t>(1, std::thread::hardware_concurrency()); }
+
+// Calls body(begin, end) on disjoint ranges covering [0, n), each at least min_chunk long (except when n is
+// smaller), on up to worker_count() threads; the calling thread runs the first range. Returns when all are done.
+template <class Body>
+void parallel_for(std::size_t n, std::size_t min_chunk, const Body& body) {
+  const std::size_t chunks = std::clamp<std::size_t>(n / std::max<std::size_t>(min_chunk, 1), 1, worker_count());
+  if (chunks == 1) {
+    body(std::size_t{0}, n);
+    return;
+  }
+  std::vector<std::exception_ptr> errors(chunks);
+  auto run = [&](std::size_t c) {
+    try {
+      body(n * c / chunks, n * (c + 1) / chunks);
+    } catch (...) {
+      errors[c] = std::current_exception();
+    }
+  };
+  std::vector<std::thread> threads;
+  threads.reserve(chunks - 1);
+  for (std::size_t c = 1; c < chunks; ++c) threads.emplace_back(run, c);
+  run(0);
+  for (std::thread& t : threads) t.join();
+  for (const std::exception_ptr& e : errors)
+    if (e) std::rethrow_exception(e);
+}
+
+}  // namespace toehold::detail
