@@ -6,6 +6,7 @@
 #include "toehold/fatigue/corrections.hpp"
 #include "toehold/fatigue/sn_catalogue.hpp"
 #include "toehold/hotspot/definition.hpp"
+#include "toehold/nominal/nominal_check.hpp"
 
 #include <cmath>
 #include <limits>
@@ -86,12 +87,15 @@ SnCurve toe_curve(const Plan& plan, const ToePlan& toe, double& thickness_factor
   return curve;
 }
 
+// The one stress-range check of toehold, shared with the nominal method (nominal/nominal_check.hpp).
 void check_range(StationResult& r, const SnCurve& curve, const RequirementPlan& req) {
   if (!r.ok()) return;
-  r.allowable = curve.allowable_range(req.cycles, Amplitude::constant) / req.gamma_M;
-  const double design_range = req.gamma_F * r.range;
-  r.utilization = r.allowable > 0 ? design_range / r.allowable : std::numeric_limits<double>::infinity();
-  r.life = curve.cycles_to_failure(design_range * req.gamma_M, Amplitude::constant);
+  const nominal::RangeRequirement requirement{req.cycles, req.gamma_M, req.gamma_F, Amplitude::constant};
+  const nominal::RangeCheck c = nominal::check_range(curve, r.range, requirement, "station " +
+                                                                                       std::to_string(r.station.id));
+  r.allowable = c.allowable_MPa;
+  r.utilization = c.utilization;
+  r.life = c.life;
 }
 
 }  // namespace toehold::detail

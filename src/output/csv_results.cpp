@@ -49,6 +49,8 @@ private:
   bool first_ = true;
 };
 
+std::string steps_between(const Assessment& a, int from, int to);
+
 Row header(const OutputContext& c) {
   Row r;
   r.text("toe").text("toe name").text(kStationId);
@@ -61,7 +63,31 @@ Row header(const OutputContext& c) {
         .text("equivalent stress range at 2e6 [MPa]").text("cycles per repeat").text("governing range [MPa]")
         .text("governing mean [MPa]").text("governing cycles").text("governing damage share [-]")
         .text("mean-stress correction").text("counting");
+  if (has_nominal(*c.a))
+    r.text("nominal source").text("nominal S-N curve").text("nominal stress range [MPa]")
+        .text("nominal range between steps").text("nominal allowable stress range [MPa]")
+        .text("nominal utilization [-]").text("nominal life [cycles]")
+        .text("structural stress concentration factor [-]").text("governing method");
   return r;
+}
+
+void nominal_fields(const OutputContext& c, const ToeResult& toe, const StationResult& s, Row& r) {
+  if (!toe.nominal) {
+    for (int k = 0; k < 9; ++k) r.empty();
+    return;
+  }
+  r.text(toe.nominal->source).text(toe.nominal->curve);
+  if (!s.nominal || !s.nominal->check.ok()) {
+    for (int k = 0; k < 7; ++k) r.empty();
+    return;
+  }
+  const NominalCheckResult& n = s.nominal->check;
+  r.num(n.range).text(steps_between(*c.a, n.range_from, n.range_to)).num(n.allowable).num(n.utilization).num(n.life);
+  if (s.nominal->concentration_factor)
+    r.num(*s.nominal->concentration_factor);
+  else
+    r.empty();
+  r.text(s.nominal->governing);
 }
 
 void damage_fields(const OutputContext& c, const ToeResult& toe, const StationResult& s, Row& r) {
@@ -81,11 +107,13 @@ void damage_fields(const OutputContext& c, const ToeResult& toe, const StationRe
 }
 
 // "<step a> to <step b>", or "" when the range's steps are not known.
-std::string range_steps(const Assessment& a, const StationResult& s) {
+std::string steps_between(const Assessment& a, int from, int to) {
   const auto n = static_cast<int>(a.steps.size());
-  if (s.range_from < 0 || s.range_to < 0 || s.range_from >= n || s.range_to >= n) return "";
-  return a.steps[static_cast<std::size_t>(s.range_from)] + " to " + a.steps[static_cast<std::size_t>(s.range_to)];
+  if (from < 0 || to < 0 || from >= n || to >= n) return "";
+  return a.steps[static_cast<std::size_t>(from)] + " to " + a.steps[static_cast<std::size_t>(to)];
 }
+
+std::string range_steps(const Assessment& a, const StationResult& s) { return steps_between(a, s.range_from, s.range_to); }
 
 void result_fields(const OutputContext& c, const StationResult& s, Row& r) {
   const std::size_t steps = c.a->steps.size();
@@ -110,6 +138,7 @@ Row station_row(const OutputContext& c, int toe_number, const ToeResult& toe, co
   result_fields(c, s, r);
   r.text(station_status(s)).text(toe.curve);
   if (damage_kind(*c.a)) damage_fields(c, toe, s, r);
+  if (has_nominal(*c.a)) nominal_fields(c, toe, s, r);
   return r;
 }
 

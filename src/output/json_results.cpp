@@ -3,6 +3,7 @@
 
 #include "toehold/output/json_writer.hpp"
 #include "toehold/output/summary.hpp"
+#include "toehold/nominal/names.hpp"
 
 #include <cmath>
 
@@ -135,6 +136,8 @@ std::string status_of(const StationResult& s) {
   return s.exceeds() ? "exceeds" : "ok";
 }
 
+void write_station_nominal(JsonWriter& w, const Context& c, const StationResult& s);
+
 void write_station(JsonWriter& w, const Context& c, const ToeResult& t, const StationResult& s) {
   w.begin_object().field("id", s.station.id).key("position").numbers(c.position(s.station.x));
   w.field("arc_length", c.length(s.station.arc));
@@ -152,7 +155,107 @@ void write_station(JsonWriter& w, const Context& c, const ToeResult& t, const St
   w.key("notes").strings(s.notes);
   write_points(w, c, s);
   write_result(w, c, t, s);
+  write_station_nominal(w, c, s);
   w.end_object();
+}
+
+void write_steps(JsonWriter& w, const char* name, int from, int to) {
+  w.key(name);
+  if (from >= 0 && to >= 0)
+    w.begin_array(true).value(from).value(to).end_array();
+  else
+    w.null();
+}
+
+void write_nominal_check(JsonWriter& w, const Context& c, const NominalCheckResult& n) {
+  w.key("check").begin_object().key("problem");
+  if (n.ok())
+    w.null();
+  else
+    w.value(n.problem);
+  w.key("values").numbers(n.values).field("range", n.range);
+  write_steps(w, "range_steps", n.range_from, n.range_to);
+  w.field("allowable", n.allowable).field("utilization", n.utilization);
+  maybe_infinite(w, "life_cycles", n.life);
+  if (uses_damage(c.a)) {
+    w.field("damage", n.damage).field("damage_limit", n.damage_limit);
+    maybe_infinite(w, "life_repeats", n.life_repeats);
+    maybe_infinite(w, "life_years", n.life_years);
+    w.field("equivalent_range", n.equivalent_range);
+  }
+  w.end_object();
+}
+
+void write_station_nominal(JsonWriter& w, const Context& c, const StationResult& s) {
+  if (!s.nominal) return;
+  const StationNominal& n = *s.nominal;
+  w.key("nominal").begin_object();
+  write_nominal_check(w, c, n.check);
+  w.key("sample_position");
+  if (n.sample_x)
+    w.numbers(c.position(*n.sample_x));
+  else
+    w.null();
+  w.key("concentration_factor");
+  if (n.concentration_factor)
+    w.value(*n.concentration_factor);
+  else
+    w.null();
+  w.key("governing");
+  if (n.governing.empty())
+    w.null();
+  else
+    w.value(n.governing);
+  w.field("verdict", n.verdict).end_object();
+}
+
+void write_infinite_life(JsonWriter& w, const InfiniteLifeResult& r) {
+  const nominal::WeldCheck& k = r.check;
+  w.begin_object().field("material", k.material.name).field("material_source", k.material.source);
+  w.field("shear", k.shear).field("ultimate", k.ultimate_MPa).field("yield", k.yield_MPa);
+  w.field("specimen_endurance", k.endurance.specimen_MPa);
+  w.key("marin").begin_object(true).field("k_a", k.endurance.k_a).field("k_b", k.endurance.k_b);
+  w.field("k_c", k.endurance.k_c).field("k_d", k.endurance.k_d).field("k_e", k.endurance.k_e);
+  w.field("k_f", k.endurance.k_f).end_object();
+  w.field("endurance", k.endurance.endurance_MPa).field("concentration_factor", k.concentration_factor);
+  w.field("nominal_alternating", k.nominal_alternating_MPa).field("nominal_mean", k.nominal_mean_MPa);
+  w.field("alternating", k.alternating_MPa).field("mean", k.mean_MPa);
+  w.key("factors_of_safety").begin_object(true);
+  maybe_infinite(w, "goodman", k.goodman);
+  maybe_infinite(w, "gerber", k.gerber);
+  maybe_infinite(w, "asme_elliptic", k.asme_elliptic);
+  maybe_infinite(w, "first_cycle_yield", k.first_cycle_yield);
+  w.end_object();
+  w.field("criterion", nominal::to_string(k.criterion)).field("governing", nominal::to_string(k.governing));
+  maybe_infinite(w, "factor_of_safety", k.factor_of_safety);
+  write_steps(w, "steps", r.from, r.to);
+  w.field("cycle", r.cycle).end_object();
+}
+
+void write_toe_nominal(JsonWriter& w, const Context& c, const ToeResult& t) {
+  if (!t.nominal) return;
+  const ToeNominalResult& n = *t.nominal;
+  w.key("nominal").begin_object().field("source", n.source).field("description", n.description);
+  w.field("curve", n.curve).field("curve_source", n.curve_source).field("stress_kind", n.stress_kind);
+  w.field("per_station", n.per_station);
+  write_nominal_check(w, c, n.check);
+  w.key("worst_station");
+  if (n.worst >= 0)
+    w.value(t.stations[static_cast<std::size_t>(n.worst)].station.id);
+  else
+    w.null();
+  w.key("governing");
+  if (n.governing.empty())
+    w.null();
+  else
+    w.value(n.governing);
+  w.key("infinite_life");
+  if (n.infinite_life) {
+    write_infinite_life(w, *n.infinite_life);
+  } else {
+    w.null();
+  }
+  w.key("notes").strings(n.notes).end_object();
 }
 
 void write_toe(JsonWriter& w, const Context& c, int number, const ToeResult& t) {
@@ -167,6 +270,7 @@ void write_toe(JsonWriter& w, const Context& c, int number, const ToeResult& t) 
     w.value(t.stations[static_cast<std::size_t>(t.worst)].station.id);
   else
     w.null();
+  write_toe_nominal(w, c, t);
   w.key("stations").begin_array();
   for (const auto& s : t.stations) write_station(w, c, t, s);
   w.end_array().end_object();

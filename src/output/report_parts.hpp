@@ -40,6 +40,8 @@ std::string toe_anchor(std::size_t toe);
 std::string station_anchor(std::size_t toe, int station_id);
 
 std::string toe_section(const Context& c, std::size_t toe);
+// The nominal-stress method beside the hot-spot method of a toe with [toe.nominal]; "" for other toes.
+std::string nominal_section(const Context& c, std::size_t toe);
 std::string critical_station_section(const Context& c, std::size_t toe, std::size_t station);
 
 }  // namespace toehold::report

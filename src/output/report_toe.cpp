@@ -144,6 +144,7 @@ std::string toe_section(const Context& c, std::size_t t) {
   os << "<section class=\"toe\">\n<h2 id=\"" << toe_anchor(t) << "\">Toe " << t + 1 << ": " << esc(toe.plan.name)
      << "</h2>\n" << toe_facts(c, toe);
   os << "<div class=\"plots\">\n" << utilization_plot(c, t, v) << range_plot(c, t, v) << "</div>\n";
+  os << nominal_section(c, t);
   os << "<h3>Stations of '" << esc(toe.plan.name) << "'</h3>\n<table class=\"stations\" data-toe=\"" << t + 1
      << "\">\n" << header_row(c, toe);
   for (const auto& s : toe.stations) os << station_row(c, t, s);

@@ -39,6 +39,13 @@ inline constexpr const char* kStationUtilization = "station utilization [-]";
 inline std::string hot_spot_name(const std::string& step) { return "hot-spot stress " + step + " [MPa]"; }
 inline std::string normal_stress_name(const std::string& step) { return "normal stress " + step + " [MPa]"; }
 
+// True when at least one toe has a nominal-stress check ([toe.nominal]): the files then carry its columns.
+inline bool has_nominal(const Assessment& a) {
+  for (const auto& t : a.toes)
+    if (t.nominal) return true;
+  return false;
+}
+
 // The status column and flag of a station: "ok", "exceeds", or "no result: <problem>".
 std::string station_status(const StationResult& s);
 

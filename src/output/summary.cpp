@@ -1,5 +1,7 @@
 #include "toehold/output/summary.hpp"
 
+#include "toehold/nominal/names.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
@@ -90,6 +92,31 @@ std::string damage_table(const Assessment& a) {
   return os.str();
 }
 
+// Toes with [toe.nominal]: the nominal method beside the hot-spot method at the toe's worst stations.
+std::string nominal_table(const Assessment& a) {
+  std::ostringstream os;
+  os << pad("toe", 16) << pad("source", 18) << pad("nominal [MPa]", 14, true) << pad("hot spot [MPa]", 15, true)
+     << pad("SCF", 7, true) << pad("util. nom.", 11, true) << pad("util. h.s.", 11, true) << "  governs\n";
+  for (const ToeResult& t : a.toes) {
+    if (!t.nominal) continue;
+    const ToeNominalResult& n = *t.nominal;
+    os << pad(t.plan.name, 16) << pad(n.source, 18);
+    const StationResult* hot = t.worst >= 0 ? &t.stations[static_cast<std::size_t>(t.worst)] : nullptr;
+    const bool nominal_ok = n.check.ok() && (n.worst >= 0 || !n.per_station);
+    os << pad(nominal_ok ? fixed(n.check.range, 1) : "-", 14, true) << pad(hot ? fixed(hot->range, 1) : "-", 15, true);
+    const bool scf = hot && hot->nominal && hot->nominal->concentration_factor;
+    os << pad(scf ? fixed(*hot->nominal->concentration_factor, 2) : "-", 7, true)
+       << pad(nominal_ok ? fixed(n.check.utilization, 3) : "-", 11, true)
+       << pad(hot ? fixed(hot->utilization, 3) : "-", 11, true) << "  "
+       << (n.governing.empty() ? "-" : n.governing) << "\n";
+    if (n.infinite_life)
+      os << "    infinite-life weld check: factor of safety " << fixed(n.infinite_life->check.factor_of_safety, 2)
+         << " (" << nominal::to_string(n.infinite_life->check.governing) << ")\n";
+    if (!n.check.ok()) os << "    no nominal result: " << n.check.problem << "\n";
+  }
+  return os.str();
+}
+
 std::string loading_line(const Assessment& a) {
   const auto& p = a.plan;
   std::ostringstream os;
@@ -125,6 +152,10 @@ std::string format_assessment_summary(const Assessment& a, const std::string& ou
     os << "\n";
   }
   os << "\nWorst station of each toe:\n" << (damage ? damage_table(a) : table(a)) << "\n";
+  if (std::any_of(a.toes.begin(), a.toes.end(), [](const ToeResult& t) { return t.nominal.has_value(); }))
+    os << "Nominal-stress method beside the hot-spot method (hot spot and SCF at the worst station; nominal "
+          "source and detail class per toe in report.html):\n"
+       << nominal_table(a) << "\n";
   os << a.stations() << " stations: " << a.stations() - a.stations_without_result() - a.stations_exceeding()
      << " pass, " << a.stations_exceeding() << " exceed, " << a.stations_without_result() << " without result\n";
   if (!output_folder.empty()) {

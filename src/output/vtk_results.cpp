@@ -74,6 +74,9 @@ struct StationArrays {
   vtkSmartPointer<vtkIntArray> toe, id, exceeds, has_result;
   vtkSmartPointer<vtkDoubleArray> arc, range, allowable, utilization, life, tangent, normal, readout;
   std::vector<vtkSmartPointer<vtkDoubleArray>> hot_spot;  // one per load step
+  // Toes with [toe.nominal] only (null when no toe has one).
+  vtkSmartPointer<vtkDoubleArray> nominal_range, nominal_utilization, nominal_life, concentration;
+  vtkSmartPointer<vtkIntArray> nominal_governs;
   // Damage kinds only (null for range).
   vtkSmartPointer<vtkDoubleArray> damage, life_repeats, life_years, equivalent, governing_range, governing_share;
 
@@ -84,6 +87,24 @@ struct StationArrays {
     equivalent = doubles(data, "equivalent stress range at 2e6 [MPa]");
     governing_range = doubles(data, "governing range [MPa]");
     governing_share = doubles(data, "governing damage share [-]");
+  }
+
+  void add_nominal_arrays(vtkPolyData* data) {
+    nominal_range = doubles(data, "nominal stress range [MPa]");
+    nominal_utilization = doubles(data, "nominal utilization [-]");
+    nominal_life = doubles(data, "nominal life [cycles]");
+    concentration = doubles(data, "structural stress concentration factor [-]");
+    nominal_governs = ints(data, "nominal governs [1 = yes]");
+  }
+
+  void fill_nominal(vtkIdType row, const StationResult& s) {
+    if (!nominal_range || !s.nominal || !s.nominal->check.ok()) return;
+    const StationNominal& n = *s.nominal;
+    nominal_range->SetValue(row, n.check.range);
+    nominal_utilization->SetValue(row, n.check.utilization);
+    nominal_life->SetValue(row, n.check.life);
+    if (n.concentration_factor) concentration->SetValue(row, *n.concentration_factor);
+    nominal_governs->SetValue(row, n.governing == "nominal" ? 1 : 0);
   }
 
   void fill_damage(vtkIdType row, const StationResult& s) {
@@ -106,6 +127,7 @@ struct StationArrays {
         readout(doubles(data, "read-out direction [unit vector]", 3)) {
     for (const auto& step : c.a->steps) hot_spot.push_back(doubles(data, hot_spot_name(step)));
     if (c.a->plan.loading.kind != LoadingKind::range) add_damage_arrays(data);
+    if (has_nominal(*c.a)) add_nominal_arrays(data);
   }
 
   void fill(vtkIdType row, int toe_number, const StationResult& s, const OutputContext& c) {
@@ -126,6 +148,7 @@ struct StationArrays {
     utilization->SetValue(row, s.utilization);
     life->SetValue(row, s.life);
     fill_damage(row, s);
+    fill_nominal(row, s);
   }
 };
 

@@ -8,6 +8,7 @@
 #include "toehold/common/tensor.hpp"
 #include "toehold/fatigue/miner.hpp"
 #include "toehold/model/mesh.hpp"
+#include "toehold/nominal/infinite_life.hpp"
 #include "toehold/plan/plan.hpp"
 #include "toehold/readout/scheme.hpp"
 #include "toehold/toe/station.hpp"
@@ -28,6 +29,35 @@ struct ReadoutPoint {
   std::array<double, 3> pcoords{};     // parametric coordinates in the host cell
   double off_model = 0.0;              // mm between the point and its host cell (0 when inside)
   std::vector<double> normal_stress;   // per load step: readout . S . readout at the point, MPa
+};
+
+// One nominal stress history checked against the toe's nominal detail class, by the plan's loading kind (the same
+// rules as the hot-spot check of StationResult: range, or rainflow and Miner for the damage kinds).
+struct NominalCheckResult {
+  std::string problem;          // why there is no nominal result here (empty when there is one)
+  std::vector<double> values;   // per load step (unit case): nominal stress, MPa, signed; empty when a range is given
+  double range = 0.0;           // range: the largest range; damage kinds: the largest counted range. MPa, >= 0
+  int range_from = -1, range_to = -1;  // steps of the range (range kind, blocks, series); -1 when not known
+  double allowable = 0.0;       // as StationResult::allowable, on the nominal curve, MPa
+  double utilization = 0.0;     // as StationResult::utilization
+  double life = 0.0;            // as StationResult::life (inf: no damage)
+  double damage = 0.0;          // damage kinds: Miner sum of one repeat
+  double damage_limit = 0.0;    // damage kinds: allowable Miner sum of the nominal curve; 0 for range
+  double life_repeats = 0.0;    // damage kinds: repeats to the damage limit
+  double life_years = std::numeric_limits<double>::quiet_NaN();  // damage kinds with repeats_per_year, else NaN
+  double equivalent_range = 0.0;  // damage kinds: equivalent range at 2e6 cycles, MPa
+  bool ok() const { return problem.empty(); }
+};
+
+// The two methods side by side at one station.
+struct StationNominal {
+  NominalCheckResult check;     // surface-distance: this station's own; other sources: the toe's (a copy)
+  std::optional<Vec3> sample_x;  // surface-distance: the sample point on the read-out path, mm
+  // Structural stress concentration factor: hot-spot range / nominal range; none when the nominal range is 0, a
+  // shear range, or either side has no result.
+  std::optional<double> concentration_factor;
+  std::string governing;        // "nominal" or "hot-spot" (the larger utilization; ties: hot-spot); "" if unknown
+  std::string verdict;          // one line: which governs, both utilizations, ranges and curves, the factor
 };
 
 struct StationResult {
@@ -64,9 +94,32 @@ struct StationResult {
 
   std::optional<ThroughThicknessResult> through_thickness;  // when the toe asks for linearization
   std::optional<ShellStationInfo> shell;                    // shell models only
+  std::optional<StationNominal> nominal;                    // toes with [toe.nominal]
 
   bool ok() const { return problem.empty(); }
   bool exceeds() const { return ok() && utilization > 1.0; }
+};
+
+// The textbook infinite-life weld check of a toe and the load steps it was made between.
+struct InfiniteLifeResult {
+  nominal::WeldCheck check;     // every intermediate value; factor_of_safety is the governing one
+  int from = -1, to = -1;       // the steps of the governing cycle; -1 when the plan gives the range
+  std::string cycle;            // how the alternating and mean stresses were found, one line
+};
+
+// The nominal-stress method of one toe ([toe.nominal]).
+struct ToeNominalResult {
+  std::string source;           // "given", "section", "surface-distance" or "weld-group"
+  std::string description;      // one line: where and how the nominal stress is measured
+  std::string curve;            // nominal detail class as resolved (catalogue or [[curve]] name)
+  std::string curve_source;     // document, edition, section
+  std::string stress_kind;      // "normal" or "shear"
+  bool per_station = false;     // surface-distance: every station has its own nominal history
+  NominalCheckResult check;     // per-toe sources: the toe's check; surface-distance: the worst station's
+  int worst = -1;               // index into stations of the largest nominal utilization; -1 when none
+  std::string governing;        // method with the larger worst utilization over the toe; "" if unknown
+  std::optional<InfiniteLifeResult> infinite_life;
+  std::vector<std::string> notes;  // remarks (a shear nominal range has no concentration factor, ...)
 };
 
 struct ToeResult {
@@ -81,6 +134,7 @@ struct ToeResult {
   std::string mean_stress;             // "none", or the IIW f(R) case applied ("IIW f(R) stress_relieved")
   std::vector<StationResult> stations;
   int worst = -1;                      // index into stations of the largest utilization; -1 when none has a result
+  std::optional<ToeNominalResult> nominal;  // toes with [toe.nominal]
 };
 
 struct Assessment {
