@@ -2,6 +2,8 @@
 
 #include "internal.hpp"
 #include "nominal_step.hpp"
+#include "shell_setup.hpp"
+#include "through_thickness.hpp"
 #include "toehold/common/error.hpp"
 #include "toehold/fatigue/sn_catalogue.hpp"
 #include "toehold/hotspot/definition.hpp"
@@ -10,6 +12,7 @@
 #include "toehold/loading/load_history.hpp"
 
 #include <algorithm>
+#include <memory>
 #include <optional>
 #include <sstream>
 
@@ -75,9 +78,20 @@ std::string counting_rule(const Plan& plan) {
   return describe(plan.loading.repeating_history ? ResidueRule::repeat_history : ResidueRule::half_cycles);
 }
 
-std::vector<PlacedToe> place_toes(const Plan& plan, const detail::ModelGeometry& geometry,
-                                  std::vector<SnCurve>& curves, Reporter& reporter) {
-  std::vector<PlacedToe> toes;
+// What every toe's result carries besides its stations: curve, definition, damage settings.
+void describe_toe(const Plan& plan, const ToePlan& toe, const SnCurve& curve, double factor, ToeResult& r) {
+  r.thickness_factor = factor;
+  r.curve = curve.name();
+  r.curve_source = curve.source();
+  r.definition = to_string(parse_hot_spot_definition(toe.definition, "toe '" + toe.name + "'"));
+  if (plan.loading.kind != LoadingKind::range) {
+    r.damage_limit = toe.damage_limit;
+    r.mean_stress = detail::toe_mean_stress(toe);
+  }
+}
+
+std::vector<SnCurve> toe_curves(const Plan& plan, std::vector<double>& factors) {
+  std::vector<SnCurve> curves;
   for (const ToePlan& toe : plan.toes) {
     double factor = 1.0;
     try {
@@ -85,39 +99,96 @@ std::vector<PlacedToe> place_toes(const Plan& plan, const detail::ModelGeometry&
     } catch (const Error& e) {
       throw Error("toe '" + toe.name + "': " + e.what());
     }
-    toes.push_back(detail::place_toe(geometry, toe, plan.model.region_array, reporter));
-    detail::prepare_nominal(plan, geometry, toes.back());
-    ToeResult& r = toes.back().result;
-    r.thickness_factor = factor;
-    r.curve = curves.back().name();
-    r.curve_source = curves.back().source();
-    r.definition = to_string(parse_hot_spot_definition(toe.definition, "toe '" + toe.name + "'"));
-    if (plan.loading.kind != LoadingKind::range) {
-      r.damage_limit = toe.damage_limit;
-      r.mean_stress = detail::toe_mean_stress(toe);
-    }
+    factors.push_back(factor);
   }
-  return toes;
+  return curves;
 }
 
-// Reads every step once and keeps, per station, the read-out normal stresses and the in-plane toe stress.
-StepValues read_steps(const Plan& plan, const Mesh& geometry, std::vector<PlacedToe>& toes, Assessment& out,
-                      Reporter& reporter) {
-  StepValues values(toes.size());
-  for (std::size_t t = 0; t < toes.size(); ++t) values[t].resize(toes[t].stations.size());
-  detail::StepReader steps(plan, geometry, reporter);
+// True when some point is used by two cells: point data on such a mesh are nodal averages. Element-nodal results
+// repeat the nodes per cell, so no point is shared there.
+bool shares_nodes(vtkUnstructuredGrid* grid) {
+  std::vector<unsigned char> used(static_cast<std::size_t>(grid->GetNumberOfPoints()), 0);
+  for (vtkIdType c = 0; c < grid->GetNumberOfCells(); ++c) {
+    vtkIdType n = 0;
+    const vtkIdType* pts = nullptr;
+    grid->GetCellPoints(c, n, pts);
+    for (vtkIdType i = 0; i < n; ++i) {
+      unsigned char& u = used[static_cast<std::size_t>(pts[i])];
+      if (u != 0) return true;
+      u = 1;
+    }
+  }
+  return false;
+}
+
+const char* const kNodalAverages =
+    "the stresses are point data on nodes that neighbouring cells share, so they are nodal averages: smoothed "
+    "across cell boundaries, also across the weld/plate boundary where weld and plate cells share nodes; cell data "
+    "or element-nodal values (nodes repeated per cell) avoid this";
+
+// The toes placed on the model, their linearization state and every step's values per station.
+struct PlacedRun {
+  std::vector<PlacedToe> toes;
+  std::vector<detail::ThicknessToe> linear;  // per toe
+  StepValues values;
+};
+
+PlacedRun run_solid(const Plan& plan, const detail::ModelGeometry& geometry, Assessment& out, Reporter& reporter) {
+  PlacedRun run;
+  for (const ToePlan& toe : plan.toes) {
+    run.toes.push_back(detail::place_toe(geometry, toe, plan.model.region_array, reporter));
+    detail::prepare_nominal(plan, geometry, run.toes.back());
+    const WeldSide weld = detail::toe_weld_side(geometry, toe, plan.model.region_array);
+    run.linear.push_back(detail::prepare_through_thickness(geometry, toe, weld, run.toes.back()));
+  }
+  run.values.resize(run.toes.size());
+  for (std::size_t t = 0; t < run.toes.size(); ++t) run.values[t].resize(run.toes[t].stations.size());
+  detail::StepReader steps(plan, geometry.mesh, reporter);
+  bool averaged = false;
   for (std::size_t k = 0; k < plan.steps.size(); ++k) {
     reporter.progress("load steps", k, plan.steps.size());
     const StressField field = steps.read(k);
-    for (std::size_t t = 0; t < toes.size(); ++t) {
-      for (std::size_t s = 0; s < toes[t].stations.size(); ++s)
-        detail::record_step(toes[t].stations[s], toes[t].result.scheme, field, values[t][s]);
-      detail::record_nominal_step(toes[t], field);
+    if (!averaged && field.where() == Association::point && shares_nodes(geometry.mesh.grid())) {
+      averaged = true;
+      out.warnings.push_back(kNodalAverages);
+    }
+    for (std::size_t t = 0; t < run.toes.size(); ++t) {
+      for (std::size_t s = 0; s < run.toes[t].stations.size(); ++s)
+        detail::record_step(run.toes[t].stations[s], run.toes[t].result.scheme, field, run.values[t][s]);
+      detail::record_nominal_step(run.toes[t], field);
+      detail::record_through_thickness_step(run.linear[t], field);
     }
   }
   reporter.progress("load steps", plan.steps.size(), plan.steps.size());
   out.input_files = steps.files();
-  return values;
+  return run;
+}
+
+// The shell path: toes on plate intersection lines, every step's layer stresses read once, each station reading
+// its own layer. [toe.nominal] is refused on shell models by the plan, so the nominal hooks are not called.
+PlacedRun run_shell(const Plan& plan, const detail::ShellGeometry& geometry, Assessment& out, Reporter& reporter) {
+  PlacedRun run;
+  std::vector<std::vector<ShellLayer>> layers;
+  for (const ToePlan& toe : plan.toes) {
+    detail::PlacedShellToe placed = detail::place_shell_toe(geometry, toe, plan.model.region_array, reporter);
+    run.toes.push_back(std::move(placed.toe));
+    layers.push_back(std::move(placed.layers));
+    run.linear.emplace_back();
+  }
+  run.values.resize(run.toes.size());
+  for (std::size_t t = 0; t < run.toes.size(); ++t) run.values[t].resize(run.toes[t].stations.size());
+  detail::ShellStepReader steps(plan, geometry.shells, reporter);
+  for (std::size_t k = 0; k < plan.steps.size(); ++k) {
+    reporter.progress("load steps", k, plan.steps.size());
+    const ShellLayerStress stress = steps.read(k);
+    for (std::size_t t = 0; t < run.toes.size(); ++t)
+      for (std::size_t s = 0; s < run.toes[t].stations.size(); ++s)
+        detail::record_step(run.toes[t].stations[s], run.toes[t].result.scheme, stress.layer(layers[t][s]),
+                            run.values[t][s]);
+  }
+  reporter.progress("load steps", plan.steps.size(), plan.steps.size());
+  out.input_files = steps.files();
+  return run;
 }
 
 std::optional<LoadHistory> read_history(const Plan& plan, Reporter& reporter) {
@@ -158,16 +229,28 @@ Assessment run_assessment(const Plan& plan, Reporter& reporter) {
   for (const auto& s : plan.steps) out.steps.push_back(s.name);
   const std::optional<LoadHistory> history = read_history(plan, reporter);
   out.history_rows = history ? history->rows() : plan.loading.kind == LoadingKind::series ? plan.steps.size() : 0;
-  const auto [geometry_file, geometry_step] = detail::geometry_source(plan);
-  detail::ModelGeometry geometry(read_mesh(geometry_file, geometry_step, plan.model.length_unit, reporter));
-  out.model_points = geometry.mesh.grid()->GetNumberOfPoints();
-  out.model_cells = geometry.mesh.grid()->GetNumberOfCells();
-  geometry.cell_region = detail::read_cell_region(geometry.mesh, plan.model.region_array);
-
-  std::vector<SnCurve> curves;
-  std::vector<PlacedToe> toes = place_toes(plan, geometry, curves, reporter);
-  const StepValues values = read_steps(plan, geometry.mesh, toes, out, reporter);
-  out.model = geometry.mesh;
+  std::vector<double> factors;
+  const std::vector<SnCurve> curves = toe_curves(plan, factors);
+  PlacedRun run;
+  std::unique_ptr<detail::ShellGeometry> shells;    // kept for the whole run, as the toes' states may refer to them
+  std::unique_ptr<detail::ModelGeometry> geometry;
+  if (plan.model.shell) {
+    shells = detail::read_shell_geometry(plan, reporter);
+    out.model = shells->shells.mesh();
+    run = run_shell(plan, *shells, out, reporter);
+  } else {
+    const auto [geometry_file, geometry_step] = detail::geometry_source(plan);
+    geometry = std::make_unique<detail::ModelGeometry>(
+        read_mesh(geometry_file, geometry_step, plan.model.length_unit, reporter));
+    geometry->cell_region = detail::read_cell_region(geometry->mesh, plan.model.region_array);
+    out.model = geometry->mesh;
+    run = run_solid(plan, *geometry, out, reporter);
+  }
+  out.model_points = out.model.grid()->GetNumberOfPoints();
+  out.model_cells = out.model.grid()->GetNumberOfCells();
+  std::vector<PlacedToe>& toes = run.toes;
+  for (std::size_t t = 0; t < toes.size(); ++t) describe_toe(plan, plan.toes[t], curves[t], factors[t], toes[t].result);
+  const StepValues& values = run.values;
 
   const std::size_t total = count_stations(toes);
   std::size_t done = 0;
@@ -181,6 +264,9 @@ Assessment run_assessment(const Plan& plan, Reporter& reporter) {
       StationResult& r = toes[t].stations[s].result;
       if (r.ok()) evaluate_station(plan, r, values[t][s], damage, definition, toe, curves[t], history);
     }
+    if (!run.linear[t].stations.empty())
+      detail::evaluate_through_thickness(run.linear[t], toes[t], definition, detail::definition_options(toe),
+                                         plan.loading.kind);
     detail::evaluate_nominal(plan, toes[t], history);
     finish_toe(toes[t], out);
     out.toes.push_back(std::move(toes[t].result));

@@ -1,4 +1,5 @@
 #include "internal.hpp"
+#include "through_thickness.hpp"
 
 #include "toehold/common/error.hpp"
 #include "toehold/toe/fitness.hpp"
@@ -159,6 +160,10 @@ std::vector<int> read_cell_region(const Mesh& mesh, const std::string& name) {
   for (vtkIdType i = 0; i < array->GetNumberOfTuples(); ++i)
     region[static_cast<std::size_t>(i)] = static_cast<int>(std::lround(array->GetComponent(i, 0)));
   return region;
+}
+
+WeldSide toe_weld_side(const ModelGeometry& g, const ToePlan& toe, const std::string& region_array) {
+  return weld_side(g, toe, region_array);
 }
 
 PlacedToe place_toe(const ModelGeometry& g, const ToePlan& toe, const std::string& region_array, Reporter& reporter) {

@@ -85,7 +85,10 @@ ModelPlan read_model(Context& ctx, const toml::table& root) {
     throw Error(location(ctx.file, 0) +
                 "the plan has no [model] table; add one with file, length_unit and stress_unit");
   Fields f(ctx.file, *table, "model", "[model]", false);
-  f.check_known({"file", "length_unit", "stress_unit", "stress", "stress_components", "order", "region_array"});
+  std::vector<std::string_view> known{"file", "length_unit", "stress_unit", "stress", "stress_components", "order",
+                                      "region_array"};
+  known.insert(known.end(), shell_model_keys().begin(), shell_model_keys().end());
+  f.check_known(known);
   ModelPlan model;
   model.file = resolve(ctx, f.need_text("file",
                                         "name the FE model file (.vtu, .pvtu, .vtk or .pvd), relative to "
@@ -94,11 +97,15 @@ ModelPlan read_model(Context& ctx, const toml::table& root) {
                                         f.where("length_unit"));
   model.stress_unit = parse_stress_unit(
       f.need_text("stress_unit", "declare the model's stress unit (MPa, Pa, psi or ksi)"), f.where("stress_unit"));
+  model.region_array = f.text("region_array").value_or("");
+  ctx.mm = mm_per(model.length_unit);
+  if (read_shell_flag(f)) {
+    model.shell = read_model_shell(ctx, f);
+    return model;
+  }
   const StressKeys keys = read_stress_keys(f);
   if (keys.order && !keys.array) f.fail_key("order", "describes model.stress; give model.stress too");
   model.stress = spec_from(keys);
-  model.region_array = f.text("region_array").value_or("");
-  ctx.mm = mm_per(model.length_unit);
   return model;
 }
 
@@ -130,7 +137,12 @@ StepPlan read_step(const Context& ctx, const Fields& f, const ModelPlan& model) 
                                  fs::path(step.file).filename().string() + "' is neither");
     step.step = *pvd;
   }
-  step.stress = step_stress(f, model);
+  if (model.shell) {
+    step.layers = step_layers(f, model);
+  } else {
+    refuse_step_layers(f);
+    step.stress = step_stress(f, model);
+  }
   return step;
 }
 
@@ -145,7 +157,9 @@ std::vector<StepPlan> read_steps(const Context& ctx, const toml::table& root, co
     Fields f(ctx.file, *tables[i], "step", "step " + std::to_string(i + 1), true);
     const std::string name = f.need_text("name", "give each step a unique name");
     f.set_owner("step '" + name + "'");
-    f.check_known({"name", "file", "pvd_step", "pvd_steps", "stress", "stress_components", "order"});
+    std::vector<std::string_view> known{"name", "file", "pvd_step", "pvd_steps", "stress", "stress_components", "order"};
+    known.insert(known.end(), shell_layer_keys().begin(), shell_layer_keys().end());
+    f.check_known(known);
     const StepPlan step = read_step(ctx, f, model);
     for (const StepPlan& each : expand_pvd_steps(f, step)) {
       if (const auto it = seen.find(each.name); it != seen.end())

@@ -50,6 +50,28 @@ std::vector<MaterialPlan> read_materials(const Context& ctx, const toml::table& 
 std::optional<ToeNominalPlan> read_toe_nominal(const Context& ctx, const Fields& f, const ToePlan& toe,
                                                const std::vector<MaterialPlan>& materials);
 
+// ---- shell models and linearization (plan_shell.cpp) ----
+// [model] keys of shell models, and the layer-array keys a shell model's [model] and [[step]] tables may give.
+const std::vector<std::string_view>& shell_model_keys();
+const std::vector<std::string_view>& shell_layer_keys();
+// model.shell (default false); Error for shell-only keys of a solid [model].
+bool read_shell_flag(const Fields& f);
+// The shell part of [model] (ctx.mm already set): thickness and the default layer arrays.
+ShellModelPlan read_model_shell(const Context& ctx, const Fields& f);
+// A step's layer arrays on a shell model (its own, else the model's; a full pair either way).
+ShellStressSpec step_layers(const Fields& f, const ModelPlan& model);
+// Error when a step of a solid model names layer arrays.
+void refuse_step_layers(const Fields& f);
+// Toe keys of shell models (besides the location key plate_point) and of the linearization.
+const std::vector<std::string_view>& shell_toe_keys();
+const std::vector<std::string_view>& through_thickness_keys();
+// Error for shell toe keys on a toe of a solid model.
+void refuse_shell_toe_keys(const Fields& f);
+// A toe on a shell model: carrying plate, layer, origin (sets toe.shell); Error for solid-only keys.
+void read_toe_shell(const Context& ctx, const Fields& f, const ModelPlan& model, ToePlan& toe);
+// through_thickness, _points, _rule of a solid toe (toe.thickness already read).
+void read_toe_through_thickness(const Context& ctx, const Fields& f, ToePlan& toe);
+
 std::vector<ToePlan> read_toes(const Context& ctx, const toml::table& root, const ModelPlan& model,
                                const std::vector<MaterialPlan>& materials);
 

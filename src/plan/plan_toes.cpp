@@ -18,9 +18,24 @@ const std::vector<std::string_view> kSettingKeys{"weld_regions",  "weld_point", 
                                                  "definition",    "detail_class", "curve",     "thickness_exponent",
                                                  "mean_stress"};
 
-std::vector<std::string_view> all_toe_keys() {
+// Settings of shell toes and of the linearization, which may have defaults too; plate_point says where a plate is.
+std::vector<std::string_view> setting_keys() {
+  std::vector<std::string_view> keys = kSettingKeys;
+  keys.insert(keys.end(), shell_toe_keys().begin(), shell_toe_keys().end());
+  keys.insert(keys.end(), through_thickness_keys().begin(), through_thickness_keys().end());
+  return keys;
+}
+
+std::vector<std::string_view> location_keys() {
   std::vector<std::string_view> keys = kLocationKeys;
-  keys.insert(keys.end(), kSettingKeys.begin(), kSettingKeys.end());
+  keys.push_back("plate_point");
+  return keys;
+}
+
+std::vector<std::string_view> all_toe_keys() {
+  std::vector<std::string_view> keys = location_keys();
+  const std::vector<std::string_view> settings = setting_keys();
+  keys.insert(keys.end(), settings.begin(), settings.end());
   return keys;
 }
 
@@ -32,9 +47,9 @@ const toml::table* read_defaults(const Context& ctx, const toml::table& root) {
   const toml::table* defaults = section(ctx, root, "toe_defaults");
   if (defaults == nullptr) return nullptr;
   Fields f(ctx.file, *defaults, "toe_defaults", "[toe_defaults]", false);
-  for (std::string_view key : kLocationKeys)
+  for (std::string_view key : location_keys())
     if (f.has(key)) f.fail_key(key, "cannot have a default; give it in each [[toe]]");
-  f.check_known(kSettingKeys);
+  f.check_known(setting_keys());
   return defaults;
 }
 
@@ -88,18 +103,32 @@ void read_weld_side(const Context& ctx, const Fields& f, const ModelPlan& model,
         "weld_point (a point inside the weld or the attached part)");
 }
 
-void read_sizes(const Context& ctx, const Fields& f, ToePlan& toe) {
-  const double t = f.need_number("thickness",
-                                 "give the plate thickness t (> 0) in the model length unit, here or "
-                                 "in [toe_defaults]");
-  f.require("thickness", t > 0, "greater than 0", t);
-  toe.thickness = t * ctx.mm;
+void read_thickness(const Context& ctx, const Fields& f, const ModelPlan& model, ToePlan& toe);
+
+void read_sizes(const Context& ctx, const Fields& f, const ModelPlan& model, ToePlan& toe) {
+  if (model.shell && model.shell->thickness > 0 && !f.has("thickness")) {
+    toe.thickness = model.shell->thickness;
+    record(ctx, toe, "thickness = model.thickness (" + number_text(toe.thickness / ctx.mm) + ")");
+  } else {
+    read_thickness(ctx, f, model, toe);
+  }
   if (std::optional<double> spacing = f.number("spacing")) {
     f.require("spacing", *spacing >= 0, "0 or more", *spacing);
     toe.spacing = *spacing * ctx.mm;
   } else {
     record(ctx, toe, "spacing = 0 (a station at every toe node or point)");
   }
+}
+
+void read_thickness(const Context& ctx, const Fields& f, const ModelPlan& model, ToePlan& toe) {
+  const double t = f.need_number("thickness",
+                                 model.shell ? "give the plate thickness t (> 0) in the model length unit, here or in "
+                                               "[toe_defaults]: the read-out scheme and the thickness correction use "
+                                               "it (the model's thickness_array does not give one value)"
+                                             : "give the plate thickness t (> 0) in the model length unit, here or "
+                                               "in [toe_defaults]");
+  f.require("thickness", t > 0, "greater than 0", t);
+  toe.thickness = t * ctx.mm;
 }
 
 void read_user_scheme(const Context& ctx, const Fields& f, ToePlan& toe) {
@@ -186,8 +215,14 @@ ToePlan read_toe(const Context& ctx, const Fields& f, const ModelPlan& model,
   toe.line = static_cast<int>(f.line());
   toe.name = f.need_text("name", "give each toe a unique name (it labels every output)");
   read_location(ctx, f, toe);
-  read_weld_side(ctx, f, model, toe);
-  read_sizes(ctx, f, toe);
+  if (model.shell) {
+    read_toe_shell(ctx, f, model, toe);
+  } else {
+    refuse_shell_toe_keys(f);
+    read_weld_side(ctx, f, model, toe);
+  }
+  read_sizes(ctx, f, model, toe);
+  if (!model.shell) read_toe_through_thickness(ctx, f, toe);
   read_scheme(ctx, f, toe);
   read_assessment(ctx, f, toe);
   toe.nominal = read_toe_nominal(ctx, f, toe, materials);

@@ -23,10 +23,12 @@ ThicknessLine place_thickness_line(const Locator& locator, const WeldSide& weld,
     const auto host = locator.locate(x + depth * inward, tolerance, refuse);
     if (!host) {
       line.problem = at_depth("leaves the model", depth);
+      line.stop_depth = depth;
       break;
     }
     if (weld.is_weld_cell(host->cell)) {
       line.problem = at_depth("enters the weld", depth);
+      line.stop_depth = depth;
       break;
     }
     line.depths.push_back(depth);

@@ -62,12 +62,15 @@ TEST(PlanErrors, BasePlanIsValid) { EXPECT_EQ(error_of(edited({})), "no error");
 TEST(PlanErrors, UnknownKeyListsTheKnownOnes) {
   EXPECT_EQ(error_of(edited({{15, "thicknes = 12"}})),
             "plan.toml line 15: toe 'north': unknown key 'thicknes'; known keys: name, marker_array, marker_value, "
-            "points, closed, report_stations, nominal, weld_regions, weld_point, thickness, spacing, hot_spot_type, scheme, "
-            "distances, factor, "
-            "definition, detail_class, curve, thickness_exponent, mean_stress");
+            "points, closed, report_stations, nominal, plate_point, weld_regions, weld_point, thickness, spacing, "
+            "hot_spot_type, scheme, distances, factor, definition, detail_class, curve, thickness_exponent, "
+            "mean_stress, plate_region, layer, origin, weld_leg, kink_limit, through_thickness, "
+            "through_thickness_points, through_thickness_rule");
   EXPECT_EQ(error_of(edited({{5, "stres = \"stress\""}})),
             "plan.toml line 5: [model]: unknown key 'stres'; known keys: file, length_unit, stress_unit, stress, "
-            "stress_components, order, region_array");
+            "stress_components, order, region_array, shell, thickness, thickness_array, stress_top, "
+            "stress_top_components, stress_bottom, stress_bottom_components, stress_membrane, "
+            "stress_membrane_components, stress_bending, stress_bending_components");
   EXPECT_EQ(error_of("titel = \"x\"\n" + edited({})),
             "plan.toml line 1: unknown top-level key 'titel'; known keys: title, model, step, loading, block, curve, "
             "material, toe_defaults, toe, requirement, output");

@@ -6,15 +6,26 @@
 #include "toehold/common/units.hpp"
 #include "toehold/fatigue/corrections.hpp"
 #include "toehold/fatigue/sn_curve.hpp"
+#include "toehold/hotspot/linearization.hpp"
 #include "toehold/model/stress_field.hpp"
 #include "toehold/plan/nominal_plan.hpp"
 #include "toehold/readout/scheme.hpp"
+#include "toehold/shell/shell_layers.hpp"
+#include "toehold/shell/shell_toe.hpp"
 
 #include <optional>
 #include <string>
 #include <vector>
 
 namespace toehold {
+
+// What a shell model adds to [model] (docs/shell-models.md): where the plate thickness comes from and the layer
+// stress arrays the load steps use unless they name their own.
+struct ShellModelPlan {
+  double thickness = 0.0;       // one plate thickness for every cell, mm; 0 when thickness_array is used
+  std::string thickness_array;  // one-component cell-data array of thickness, in the model's length unit; "" if none
+  ShellStressSpec layers;       // top + bottom, or membrane + bending (may be empty when every step names its own)
+};
 
 // The FE model: geometry file, units, and the stress array the load steps use unless they say otherwise.
 struct ModelPlan {
@@ -23,6 +34,7 @@ struct ModelPlan {
   StressUnit stress_unit = StressUnit::MPa;
   StressSpec stress;              // default stress array(s) and declared component order
   std::string region_array;       // cell-data integer array that tells weld cells apart; "" when none
+  std::optional<ShellModelPlan> shell;  // set for a shell model (shell = true); stress is then empty
 };
 
 // One load step (or unit load case): a file, or a time step of the model's .pvd, and its stress array.
@@ -30,7 +42,8 @@ struct StepPlan {
   std::string name;   // as the analyst calls it, e.g. "hoist loaded"
   std::string file;   // resolved path; the model file when the plan gives none
   int step = -1;      // 0-based .pvd time step; -1 when the file is not a .pvd or has exactly one step
-  StressSpec stress;  // the model's stress spec unless the step names its own
+  StressSpec stress;  // the model's stress spec unless the step names its own (solid models)
+  ShellStressSpec layers{};  // shell models: the model's layer arrays unless the step names its own (a full pair)
 };
 
 // How the load steps make the loading.
@@ -63,6 +76,23 @@ struct CurvePlan {
   SnCurve curve;
 };
 
+// How a toe on a shell model is read (docs/shell-models.md): the plate that carries it, the layer and the origin
+// of the read-out distances.
+struct ShellToePlan {
+  std::optional<int> plate_region;   // value of model.region_array on the carrying plate's cells
+  std::optional<Vec3> plate_point;   // mm: a point on the carrying plate, on the read-out side
+  LayerChoice layer = LayerChoice::weld_side;
+  ToeOrigin origin = ToeOrigin::intersection;
+  double weld_leg = 0.0;             // mm, ToeOrigin::weld_toe only (> 0 there)
+  double kink_limit_deg = 30.0;      // degrees between facet planes taken as a fold of the plate
+};
+
+// Through-thickness linearization at every station of a solid toe (ASME BPVC VIII-2 Annex 5-A).
+struct ThroughThicknessPlan {
+  int points = 9;  // samples along the line through the thickness (rule's limits, see hotspot/linearization.hpp)
+  ThroughThicknessRule rule = ThroughThicknessRule::gauss_lobatto;
+};
+
 // Where a toe is and how it is assessed.
 struct ToePlan {
   std::string name;                     // shown in every output; unique in the plan
@@ -92,6 +122,8 @@ struct ToePlan {
   // (IIW 2016 sec. 4.3.1) for IIW and user curves and 1.0 for EN 1993-1-9 and DNVGL-RP-C203 curves.
   double damage_limit = 0.5;
   std::optional<ToeNominalPlan> nominal;  // [toe.nominal]: the nominal-stress method beside the hot-spot one
+  std::optional<ShellToePlan> shell;      // set on shell models (weld_regions / weld_point are then empty)
+  std::optional<ThroughThicknessPlan> through_thickness;  // solid models: linearize beside the surface read-out
 };
 
 // What the joint must achieve.

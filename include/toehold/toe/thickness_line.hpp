@@ -17,6 +17,7 @@ struct ThicknessLine {
   std::vector<Host> hosts;     // where each depth was located; reused for every load step
   std::string problem;         // why the line cannot be used (empty when it can)
   std::string note;            // a remark that does not void it (e.g. the plate goes on beyond t)
+  double stop_depth = -1.0;    // mm below the surface where the line leaves the model or enters the weld; -1 if not
 };
 
 // Locates the points x - depth * normal (x: toe station on the surface, mm; normal: unit outward surface normal;
