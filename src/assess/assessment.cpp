@@ -2,6 +2,7 @@
 
 #include "internal.hpp"
 #include "nominal_step.hpp"
+#include "parallel_for.hpp"
 #include "shell_setup.hpp"
 #include "through_thickness.hpp"
 #include "toehold/common/error.hpp"
@@ -144,13 +145,13 @@ PlacedRun run_solid(const Plan& plan, const detail::ModelGeometry& geometry, Ass
   run.values.resize(run.toes.size());
   for (std::size_t t = 0; t < run.toes.size(); ++t) run.values[t].resize(run.toes[t].stations.size());
   detail::StepReader steps(plan, geometry.mesh, reporter);
-  bool averaged = false;
+  bool checked = false;  // the nodal-average remark is decided on the first step with point data
   for (std::size_t k = 0; k < plan.steps.size(); ++k) {
     reporter.progress("load steps", k, plan.steps.size());
     const StressField field = steps.read(k);
-    if (!averaged && field.where() == Association::point && shares_nodes(geometry.mesh.grid())) {
-      averaged = true;
-      out.warnings.push_back(kNodalAverages);
+    if (!checked && field.where() == Association::point) {
+      checked = true;
+      if (shares_nodes(geometry.mesh.grid())) out.warnings.push_back(kNodalAverages);
     }
     for (std::size_t t = 0; t < run.toes.size(); ++t) {
       for (std::size_t s = 0; s < run.toes[t].stations.size(); ++s)
@@ -259,11 +260,16 @@ Assessment run_assessment(const Plan& plan, Reporter& reporter) {
     const ToePlan& toe = plan.toes[t];
     const auto definition = parse_hot_spot_definition(toe.definition, "toe '" + toe.name + "'");
     const detail::ToeDamage damage = detail::toe_damage(plan, toe, curves[t]);
-    for (std::size_t s = 0; s < toes[t].stations.size(); ++s, ++done) {
-      if (history && done % 16 == 0) reporter.progress(what, done, total);
-      StationResult& r = toes[t].stations[s].result;
-      if (r.ok()) evaluate_station(plan, r, values[t][s], damage, definition, toe, curves[t], history);
-    }
+    std::vector<detail::PlacedStation>& stations = toes[t].stations;
+    if (history) reporter.progress(what, done, total);
+    // Each station writes only its own result; everything shared is read-only (the reporter is not called).
+    detail::parallel_for(stations.size(), 1, [&](std::size_t begin, std::size_t end) {
+      for (std::size_t s = begin; s < end; ++s) {
+        StationResult& r = stations[s].result;
+        if (r.ok()) evaluate_station(plan, r, values[t][s], damage, definition, toe, curves[t], history);
+      }
+    });
+    done += stations.size();
     if (!run.linear[t].stations.empty())
       detail::evaluate_through_thickness(run.linear[t], toes[t], definition, detail::definition_options(toe),
                                          plan.loading.kind);

@@ -49,7 +49,7 @@ void evaluate_range(StationResult& r, const std::vector<InPlaneStress>& steps, H
   for (const InPlaneStress& s : steps) tensors.push_back(tensor_of(s, frame));
   for (const Tensor& t : tensors) r.hot_spot.push_back(evaluate(definition, t, frame, options).value);
   bool any = false;
-  std::string why;
+  std::string why, note;  // note: the remark of the governing pair (principal window choices, ...)
   for (std::size_t i = 0; i < tensors.size(); ++i)
     for (std::size_t j = i + 1; j < tensors.size(); ++j) {
       const HotSpotRange range = evaluate_range(definition, tensors[i], tensors[j], frame, options);
@@ -63,10 +63,11 @@ void evaluate_range(StationResult& r, const std::vector<InPlaneStress>& steps, H
         r.range_from = static_cast<int>(i);
         r.range_to = static_cast<int>(j);
         r.range_angle_deg = range.range.angle_deg;
-        if (!range.range.note.empty()) r.notes = {range.range.note};
+        note = range.range.note;
       }
     }
   if (!any) r.problem = tensors.size() < 2 ? "fewer than two load steps" : "no valid range: " + why;
+  if (any && !note.empty()) r.notes.push_back(note);  // after the mesh-fitness remarks of the station
 }
 
 SnCurve toe_curve(const Plan& plan, const ToePlan& toe, double& thickness_factor) {
@@ -83,6 +84,14 @@ SnCurve toe_curve(const Plan& plan, const ToePlan& toe, double& thickness_factor
     os.precision(4);
     os << "thickness factor " << thickness_factor << " for t = " << toe.thickness << " mm";
     curve = curve.scaled(thickness_factor, os.str());
+  }
+  // IIW 2016 sec. 3.8.2 [M]: the hot-spot classes cover k_m = 1.05; a larger k_m raises the ranges by k_m / 1.05,
+  // which for the check is the same as lowering the curve's ranges by that factor.
+  if (const double k = toe.misalignment_km / kMisalignmentInHotSpotClasses; k > 1.0) {
+    std::ostringstream os;
+    os.precision(4);
+    os << "misalignment k_m = " << toe.misalignment_km << " (k_m / 1.05 = " << k << ")";
+    curve = curve.scaled(1.0 / k, os.str());
   }
   return curve;
 }

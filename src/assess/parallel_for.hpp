@@ -12,25 +12,35 @@
 
 namespace toehold::detail {
 
+// True on a thread that is running a parallel_for body: a nested parallel_for then runs serially.
+inline bool& inside_parallel_for() {
+  static thread_local bool inside = false;
+  return inside;
+}
+
 // Threads to use: the hardware's (at least 1).
 inline std::size_t worker_count() { return std::max<std::size_t>(1, std::thread::hardware_concurrency()); }
 
 // Calls body(begin, end) on disjoint ranges covering [0, n), each at least min_chunk long (except when n is
 // smaller), on up to worker_count() threads; the calling thread runs the first range. Returns when all are done.
+// Inside another parallel_for's body it runs serially on the calling thread (no nested threads).
 template <class Body>
 void parallel_for(std::size_t n, std::size_t min_chunk, const Body& body) {
   const std::size_t chunks = std::clamp<std::size_t>(n / std::max<std::size_t>(min_chunk, 1), 1, worker_count());
-  if (chunks == 1) {
+  if (chunks == 1 || inside_parallel_for()) {
     body(std::size_t{0}, n);
     return;
   }
   std::vector<std::exception_ptr> errors(chunks);
   auto run = [&](std::size_t c) {
+    const bool outer = inside_parallel_for();
+    inside_parallel_for() = true;
     try {
       body(n * c / chunks, n * (c + 1) / chunks);
     } catch (...) {
       errors[c] = std::current_exception();
     }
+    inside_parallel_for() = outer;
   };
   std::vector<std::thread> threads;
   threads.reserve(chunks - 1);

@@ -146,6 +146,10 @@ const ShellMesh& ShellStepReader::mesh_for(const StepPlan& step) {
 
 ShellLayerStress ShellStepReader::read(std::size_t index) {
   const StepPlan& step = plan_.steps[index];
+  if (step.unloaded) {
+    const StressField zero(Association::cell, std::vector<double>(6 * static_cast<std::size_t>(geometry_.cell_count()), 0.0));
+    return ShellLayerStress{zero, zero, "unloaded step (zero stress)"};
+  }
   const ShellMesh& mesh = mesh_for(step);
   try {
     return read_shell_layers(mesh, step.layers, plan_.model.stress_unit);

@@ -43,8 +43,9 @@ vtkSmartPointer<vtkUnstructuredGrid> read_stress_only(const std::string& file, c
 }  // namespace
 
 std::pair<std::string, int> geometry_source(const Plan& plan) {
-  if (plan.steps.empty()) return {plan.model.file, -1};
-  return {plan.steps.front().file, plan.steps.front().step};
+  for (const StepPlan& step : plan.steps)
+    if (!step.unloaded) return {step.file, step.step};
+  return {plan.model.file, -1};
 }
 
 StepReader::StepReader(const Plan& plan, const Mesh& geometry, Reporter& reporter)
@@ -79,6 +80,9 @@ const Mesh& StepReader::mesh_for(const StepPlan& step) {
 
 StressField StepReader::read(std::size_t index) {
   const StepPlan& step = plan_.steps[index];
+  if (step.unloaded)
+    return StressField(Association::cell,
+                       std::vector<double>(6 * static_cast<std::size_t>(geometry_.grid()->GetNumberOfCells()), 0.0));
   const Mesh& mesh = mesh_for(step);  // its errors name the step already
   try {
     return read_stress(mesh, step.stress, plan_.model.stress_unit);

@@ -123,7 +123,21 @@ StressSpec step_stress(const Fields& f, const ModelPlan& model) {
   return spec;
 }
 
+// unloaded = true: the structure at rest (zero stress), e.g. the other end of a range from zero to the load.
+StepPlan unloaded_step(const Fields& f, const ModelPlan& model) {
+  StepPlan step;
+  step.name = f.need_text("name", "give each step a unique name");
+  step.file = model.file;
+  step.unloaded = true;
+  std::vector<std::string_view> keys{"file", "pvd_step", "pvd_steps", "stress", "stress_components", "order"};
+  keys.insert(keys.end(), shell_layer_keys().begin(), shell_layer_keys().end());
+  for (std::string_view key : keys)
+    if (f.has_own(key)) f.fail_key(key, "does not apply to an unloaded step (zero stress everywhere, nothing is read)");
+  return step;
+}
+
 StepPlan read_step(const Context& ctx, const Fields& f, const ModelPlan& model) {
+  if (f.flag("unloaded").value_or(false)) return unloaded_step(f, model);
   StepPlan step;
   step.name = f.need_text("name", "give each step a unique name");
   const std::optional<std::string> file = f.text("file");
@@ -157,7 +171,8 @@ std::vector<StepPlan> read_steps(const Context& ctx, const toml::table& root, co
     Fields f(ctx.file, *tables[i], "step", "step " + std::to_string(i + 1), true);
     const std::string name = f.need_text("name", "give each step a unique name");
     f.set_owner("step '" + name + "'");
-    std::vector<std::string_view> known{"name", "file", "pvd_step", "pvd_steps", "stress", "stress_components", "order"};
+    std::vector<std::string_view> known{"name",   "file",  "pvd_step", "pvd_steps", "stress", "stress_components",
+                                        "order",  "unloaded"};
     known.insert(known.end(), shell_layer_keys().begin(), shell_layer_keys().end());
     f.check_known(known);
     const StepPlan step = read_step(ctx, f, model);

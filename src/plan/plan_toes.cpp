@@ -16,7 +16,7 @@ const std::vector<std::string_view> kLocationKeys{"name",   "marker_array",    "
 const std::vector<std::string_view> kSettingKeys{"weld_regions",  "weld_point",   "thickness", "spacing",
                                                  "hot_spot_type", "scheme",       "distances", "factor",
                                                  "definition",    "detail_class", "curve",     "thickness_exponent",
-                                                 "mean_stress"};
+                                                 "mean_stress",   "misalignment_km", "misalignment_offset"};
 
 // Settings of shell toes and of the linearization, which may have defaults too; plate_point says where a plate is.
 std::vector<std::string_view> setting_keys() {
@@ -191,6 +191,20 @@ void read_mean_stress(const Context& ctx, const Fields& f, ToePlan& toe) {
   toe.mean_stress = parse_iiw_mean_stress_case(key, f.where("mean_stress"));
 }
 
+// misalignment_km (k_m as calculated, >= 1) or misalignment_offset (axial offset e of equal plates, model length
+// unit: k_m = 1 + 3 e / t, IIW 2016 sec. 3.8.2); neither: k_m = 1.
+void read_misalignment(const Context& ctx, const Fields& f, ToePlan& toe) {
+  if (f.has("misalignment_km") && f.has("misalignment_offset"))
+    f.fail_key("misalignment_offset", "cannot be given together with misalignment_km; give one of the two");
+  if (std::optional<double> km = f.number("misalignment_km")) {
+    f.require("misalignment_km", *km >= 1, "1 or more (1 = no misalignment)", *km);
+    toe.misalignment_km = *km;
+  } else if (std::optional<double> e = f.number("misalignment_offset")) {
+    f.require("misalignment_offset", *e >= 0, "0 or more", *e);
+    toe.misalignment_km = axial_misalignment_factor(*e * ctx.mm, toe.thickness);
+  }
+}
+
 void read_assessment(const Context& ctx, const Fields& f, ToePlan& toe) {
   if (std::optional<std::string> definition = f.text("definition")) {
     toe.definition = *definition;
@@ -225,6 +239,7 @@ ToePlan read_toe(const Context& ctx, const Fields& f, const ModelPlan& model,
   if (!model.shell) read_toe_through_thickness(ctx, f, toe);
   read_scheme(ctx, f, toe);
   read_assessment(ctx, f, toe);
+  read_misalignment(ctx, f, toe);
   toe.nominal = read_toe_nominal(ctx, f, toe, materials);
   return toe;
 }

@@ -207,5 +207,46 @@ TEST(Assessment, MarkerWithNoNodesIsAnErrorNamingToeAndArray) {
   }
 }
 
+// IIW 2016 sec. 3.8.2 (from memory [M]): the hot-spot classes cover k_m = 1.05, so k_m = 1.26 raises the range
+// by 1.26 / 1.05 = 1.2: FAT 90 allows 90 / 1.2 = 75 MPa at 2e6 cycles, utilization 120 / 75 = 1.6, life
+// 2e6 (75 / 120)^3 = 488,281.25 cycles (derived [D]).
+TEST(Assessment, MisalignmentBeyondWhatTheHotSpotClassesCoverRaisesTheRange) {
+  test::TempDir dir;
+  const Case c;
+  Plan plan = plan_for(c, write_model(c, dir));
+  plan.toes[0].misalignment_km = 1.26;
+  NullReporter quiet;
+  const Assessment a = run_assessment(plan, quiet);
+  for (const StationResult& s : a.toes[0].stations) {
+    ASSERT_TRUE(s.ok()) << s.problem;
+    EXPECT_CLOSE(s.range, 120.0, 1e-9);
+    EXPECT_CLOSE(s.allowable, 75.0, 1e-9);
+    EXPECT_CLOSE(s.utilization, 1.6, 1e-9);
+    EXPECT_CLOSE(s.life, 488281.25, 1e-8);
+  }
+  EXPECT_NE(a.toes[0].curve.find("misalignment k_m = 1.26"), std::string::npos) << a.toes[0].curve;
+}
+
+// A range from rest to the load: the unloaded step is zero everywhere, so the range is the loaded hot spot
+// (100 MPa, derived [D]), and the geometry comes from the loaded step's file even when rest is listed first.
+TEST(Assessment, RangeFromAnUnloadedStepIsTheLoadedHotSpot) {
+  test::TempDir dir;
+  const Case c;
+  Plan plan = plan_for(c, write_model(c, dir));
+  StepPlan rest;
+  rest.name = "rest";
+  rest.file = "no such file.vtu";
+  rest.unloaded = true;
+  plan.steps = {rest, plan.steps[0]};
+  NullReporter quiet;
+  const Assessment a = run_assessment(plan, quiet);
+  for (const StationResult& s : a.toes[0].stations) {
+    ASSERT_TRUE(s.ok()) << s.problem;
+    EXPECT_CLOSE(s.hot_spot[0], 0.0, 1e-12);
+    EXPECT_CLOSE(s.hot_spot[1], 100.0, 1e-9);
+    EXPECT_CLOSE(s.range, 100.0, 1e-9);
+  }
+}
+
 }  // namespace
 }  // namespace toehold

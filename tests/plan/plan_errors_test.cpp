@@ -64,7 +64,7 @@ TEST(PlanErrors, UnknownKeyListsTheKnownOnes) {
             "plan.toml line 15: toe 'north': unknown key 'thicknes'; known keys: name, marker_array, marker_value, "
             "points, closed, report_stations, nominal, plate_point, weld_regions, weld_point, thickness, spacing, "
             "hot_spot_type, scheme, distances, factor, definition, detail_class, curve, thickness_exponent, "
-            "mean_stress, plate_region, layer, origin, weld_leg, kink_limit, through_thickness, "
+            "mean_stress, misalignment_km, misalignment_offset, plate_region, layer, origin, weld_leg, kink_limit, through_thickness, "
             "through_thickness_points, through_thickness_rule");
   EXPECT_EQ(error_of(edited({{5, "stres = \"stress\""}})),
             "plan.toml line 5: [model]: unknown key 'stres'; known keys: file, length_unit, stress_unit, stress, "
@@ -232,6 +232,29 @@ TEST(PlanErrors, StressArraysAreEitherOneOrSix) {
   EXPECT_EQ(error_of(edited({{5, ""}})),
             "plan.toml line 6: step 'a' has no stress array; give stress or stress_components in the step or in "
             "[model]");
+}
+
+// IIW 2016 sec. 3.8.2 [M]: k_m = 1 + 3 e / t; e = 1.2 mm at t = 12 mm gives 1.3 (derived [D]).
+TEST(PlanErrors, MisalignmentIsAFactorOrAnOffset) {
+  EXPECT_EQ(parse_plan(edited({{16, "curve = \"IIW FAT 100\"\nmisalignment_offset = 1.2"}}), "plan.toml")
+                .toes[0]
+                .misalignment_km,
+            1.0 + 3.0 * 1.2 / 12.0);
+  EXPECT_EQ(error_of(edited({{16, "curve = \"IIW FAT 100\"\nmisalignment_km = 0.9"}})),
+            "plan.toml line 17: toe 'north': key toe.misalignment_km must be 1 or more (1 = no misalignment), not 0.9");
+  EXPECT_EQ(error_of(edited({{16, "curve = \"IIW FAT 100\"\nmisalignment_km = 1.2\nmisalignment_offset = 1"}})),
+            "plan.toml line 18: toe 'north': key toe.misalignment_offset cannot be given together with "
+            "misalignment_km; give one of the two");
+}
+
+TEST(PlanErrors, AnUnloadedStepReadsNothing) {
+  const Plan plan = parse_plan(edited({{9, "name = \"rest\"\nunloaded = true"}}), "plan.toml");
+  ASSERT_EQ(plan.steps.size(), 2u);
+  EXPECT_TRUE(plan.steps[1].unloaded);
+  EXPECT_FALSE(plan.steps[0].unloaded);
+  EXPECT_EQ(error_of(edited({{9, "name = \"rest\"\nunloaded = true\nstress = \"s\""}})),
+            "plan.toml line 11: step 'rest': key step.stress does not apply to an unloaded step (zero stress "
+            "everywhere, nothing is read)");
 }
 
 }  // namespace

@@ -53,6 +53,8 @@ double stress_ratio(double s_min, double s_max);
 // IIW 2016 sec. 3.8.2 [M]: k_m = 1 + 3 e / t for an axial offset e between equal plates, unrestrained
 // (lambda = 6, l1 = l2). Multiplies the stress range. e_mm: offset, mm, >= 0; t_mm: thickness, mm, > 0.
 double axial_misalignment_factor(double e_mm, double t_mm);
+// IIW 2016 sec. 3.8.2 [M]: the misalignment factor already covered by the structural hot-spot FAT classes.
+inline constexpr double kMisalignmentInHotSpotClasses = 1.05;
 
 // Consequence of failure, as both IIW and EN 1993-1-9 classify it.
 enum class FailureConsequence {

@@ -44,6 +44,7 @@ struct StepPlan {
   int step = -1;      // 0-based .pvd time step; -1 when the file is not a .pvd or has exactly one step
   StressSpec stress;  // the model's stress spec unless the step names its own (solid models)
   ShellStressSpec layers{};  // shell models: the model's layer arrays unless the step names its own (a full pair)
+  bool unloaded = false;     // the structure at rest: zero stress everywhere, nothing is read for this step
 };
 
 // How the load steps make the loading.
@@ -115,6 +116,9 @@ struct ToePlan {
   std::string detail_class;             // DNV detail class for the effective hot-spot stress factor, "" if none
   std::string curve;                    // S-N curve name from the catalogue, e.g. "IIW FAT 100"
   std::optional<double> thickness_exponent;  // IIW thickness correction exponent n; none = no correction
+  // Axial misalignment factor k_m of the joint as calculated (IIW 2016 sec. 3.8.2), >= 1; 1 = none. The hot-spot
+  // classes already cover k_m = 1.05, so the stress ranges are raised by k_m / 1.05 when that exceeds 1.
+  double misalignment_km = 1.0;
   std::vector<int> report_stations;     // station ids the report details besides the worst few of the toe
   // series/unit_cases/blocks: IIW 2016 sec. 3.5.3 mean-stress enhancement f(R) case; none = no correction.
   std::optional<IiwMeanStressCase> mean_stress;
