@@ -363,6 +363,7 @@ Plan parse(const std::string& text, const std::string& path) {
   plan.text = text;
   Context ctx{path, plan_folder(path), &plan.defaults_applied};
   const toml::table root = parse_toml(text, path);
+  ctx.root = &root;
   Fields top(path, root, "", "", false);
   top.check_known(
       {"title", "model", "step", "loading", "block", "curve", "material", "toe_defaults", "toe", "requirement",

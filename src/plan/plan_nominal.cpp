@@ -11,11 +11,6 @@
 namespace toehold::plan_detail {
 namespace {
 
-// The plan's root table, for the toe's sub-tables and the model's stress unit. read_materials runs just before
-// read_toes on the same root (plan.cpp), so the pointer is valid while the toes are read; Fields gives no access
-// to a key's table.
-thread_local const toml::table* g_root = nullptr;
-
 using nominal::NominalSource;
 
 const std::vector<std::string_view> kNominalKeys{"source", "curve",  "values",   "range",     "point",
@@ -32,7 +27,7 @@ const std::vector<std::string_view> kMaterialKeys{"name", "ultimate", "yield", "
 
 // MPa per plan stress unit ([model] is read and checked before the materials and toes).
 double stress_factor(const Context& ctx) {
-  const toml::node* unit = g_root != nullptr ? g_root->at_path("model.stress_unit").node() : nullptr;
+  const toml::node* unit = ctx.root != nullptr ? ctx.root->at_path("model.stress_unit").node() : nullptr;
   if (unit == nullptr || !unit->is_string()) return 1.0;
   return mpa_per(parse_stress_unit(unit->as_string()->get(), location(ctx.file, 0) + "key model.stress_unit"));
 }
@@ -47,8 +42,8 @@ const toml::table* sub_table(const Fields& f, const toml::table& table, std::str
 }
 
 // The [[toe]] table read by `f` (matched by its line; the toe's line is unique in the plan).
-const toml::table* toe_table(const Fields& f) {
-  const toml::node* toes = g_root != nullptr ? g_root->get("toe") : nullptr;
+const toml::table* toe_table(const Context& ctx, const Fields& f) {
+  const toml::node* toes = ctx.root != nullptr ? ctx.root->get("toe") : nullptr;
   if (toes == nullptr || !toes->is_array()) return nullptr;
   for (const toml::node& item : *toes->as_array())
     if (const toml::table* t = item.as_table(); t != nullptr && line_of(*t) == f.line()) return t;
@@ -224,7 +219,7 @@ void read_section(const Context& ctx, const Fields& f, ToeNominalPlan& n) {
     s.direction = d->normalized();
   }
   if (auto regions = f.integers("regions")) {
-    const toml::node* array = g_root != nullptr ? g_root->at_path("model.region_array").node() : nullptr;
+    const toml::node* array = ctx.root != nullptr ? ctx.root->at_path("model.region_array").node() : nullptr;
     if (array == nullptr || !array->is_string())
       f.fail_key("regions", "needs model.region_array, the cell-data array that holds the region values; add it "
                             "to [model]");
@@ -290,7 +285,6 @@ void read_source(const Context& ctx, const Fields& f, const toml::table& table, 
 }  // namespace
 
 std::vector<MaterialPlan> read_materials(const Context& ctx, const toml::table& root) {
-  g_root = &root;
   std::vector<MaterialPlan> out;
   std::set<std::string> table_names{"S355"};
   for (const auto& m : nominal::material_table()) table_names.insert(m.name);
@@ -319,7 +313,7 @@ std::vector<MaterialPlan> read_materials(const Context& ctx, const toml::table& 
 std::optional<ToeNominalPlan> read_toe_nominal(const Context& ctx, const Fields& f, const ToePlan& toe,
                                                const std::vector<MaterialPlan>& materials) {
   if (!f.has_own("nominal")) return std::nullopt;
-  const toml::table* toe_t = toe_table(f);
+  const toml::table* toe_t = toe_table(ctx, f);
   const toml::table* table = toe_t != nullptr ? sub_table(f, *toe_t, "nominal") : nullptr;
   if (table == nullptr) f.fail_key("nominal", "must be a table ([toe.nominal] after the toe's [[toe]])");
   Fields n(ctx.file, *table, "toe.nominal", f.owner() + " [toe.nominal]", true);

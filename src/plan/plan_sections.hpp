@@ -18,6 +18,7 @@ struct Context {
   std::vector<std::string>* defaults;  // Plan::defaults_applied, appended to
   double mm = 1.0;                     // mm per model length unit (set once [model] is read)
   LoadingKind kind = LoadingKind::range;  // set once [loading] is read
+  const toml::table* root = nullptr;      // the whole plan, for tables that look at other sections
 };
 
 // `text` as an absolute, lexically normal path (relative ones against the plan's folder).
