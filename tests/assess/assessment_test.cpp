@@ -190,7 +190,8 @@ TEST(Assessment, CoarseMeshAtTheToeGivesEveryStationARemark) {
   bool warned = false;
   for (const std::string& w : a.warnings) warned = warned || w.find("13 stations carry remarks") != std::string::npos;
   EXPECT_TRUE(warned);
-  for (const StationResult& s : assess(Case{}).toes[0].stations) EXPECT_TRUE(s.notes.empty()) << s.notes.front();
+  const Assessment fine = assess(Case{});  // named: a range-for over a temporary's member would dangle (C++20)
+  for (const StationResult& s : fine.toes[0].stations) EXPECT_TRUE(s.notes.empty()) << s.notes.front();
 }
 
 TEST(Assessment, MarkerWithNoNodesIsAnErrorNamingToeAndArray) {
