@@ -46,6 +46,9 @@ struct ModelGeometry {
 
 std::vector<int> read_cell_region(const Mesh& mesh, const std::string& array);
 
+// The toe's weld side (region values and/or weld point) as place_toe uses it.
+WeldSide toe_weld_side(const ModelGeometry& geometry, const ToePlan& toe, const std::string& region_array);
+
 // Builds the toe line, stations and read-out points of one toe (no stresses yet).
 PlacedToe place_toe(const ModelGeometry& geometry, const ToePlan& toe, const std::string& region_array,
                     Reporter& reporter);

@@ -84,16 +84,6 @@ void prepare_section(const ModelGeometry& g, const ToePlan& toe, NominalToeState
   state.description = section_description(state.plan.section, cut_section(toe, g.mesh, zero, state.plan.section));
 }
 
-WeldSide toe_weld_side(const ModelGeometry& g, const ToePlan& toe) {
-  WeldSide side;
-  if (!toe.weld_regions.empty()) {
-    side.cell_region = g.cell_region;
-    side.weld_values = toe.weld_regions;
-  }
-  side.point = toe.weld_point;
-  return side;
-}
-
 // The sample point of one station, distance_mm along its read-out direction on the surface.
 void place_sample(const ModelGeometry& g, const WeldSide& weld, const ToePlan& toe, const StationResult& r,
                   NominalToeState& state) {
@@ -121,8 +111,9 @@ void place_sample(const ModelGeometry& g, const WeldSide& weld, const ToePlan& t
   state.problems.emplace_back();
 }
 
-void prepare_surface(const ModelGeometry& g, PlacedToe& toe, NominalToeState& state) {
-  const WeldSide weld = toe_weld_side(g, toe.result.plan);
+void prepare_surface(const ModelGeometry& g, const std::string& region_array, PlacedToe& toe,
+                     NominalToeState& state) {
+  const WeldSide weld = toe_weld_side(g, toe.result.plan, region_array);
   for (const PlacedStation& s : toe.stations) place_sample(g, weld, toe.result.plan, s.result, state);
   state.description = "surface stress across the toe at " + short_number(state.plan.distance_mm) +
                       " mm along each station's read-out path";
@@ -153,7 +144,7 @@ void prepare_nominal(const Plan& plan, const ModelGeometry& geometry, PlacedToe&
   switch (tp.nominal->source) {
     case NominalSource::given: state->description = given_description(*tp.nominal); break;
     case NominalSource::section: prepare_section(geometry, tp, *state); break;
-    case NominalSource::surface_distance: prepare_surface(geometry, toe, *state); break;
+    case NominalSource::surface_distance: prepare_surface(geometry, plan.model.region_array, toe, *state); break;
     case NominalSource::weld_group: state->description = weld_group_description(*tp.nominal->weld_group); break;
   }
   toe.nominal = std::move(state);

@@ -23,9 +23,6 @@ struct ThicknessToe {
   std::vector<ThicknessStation> stations;
 };
 
-// The toe's weld side as toe_setup builds it (toe_setup.cpp).
-WeldSide toe_weld_side(const ModelGeometry& geometry, const ToePlan& toe, const std::string& region_array);
-
 // Locates the line of every station of `placed` whose frame is set up: from the station point along
 // -frame.normal over the toe's t. Nothing when the toe has no through_thickness.
 ThicknessToe prepare_through_thickness(const ModelGeometry& geometry, const ToePlan& toe, const WeldSide& weld,
