@@ -8,6 +8,7 @@
 #include <charconv>
 #include <cmath>
 #include <fstream>
+#include <limits>
 #include <system_error>
 
 namespace toehold::detail {
@@ -68,7 +69,36 @@ Row header(const OutputContext& c) {
         .text("nominal range between steps").text("nominal allowable stress range [MPa]")
         .text("nominal utilization [-]").text("nominal life [cycles]")
         .text("structural stress concentration factor [-]").text("governing method");
+  if (has_shell(*c.a))
+    r.text("shell layer").text("read-out origin").text(c.length_name("offset from intersection line"))
+        .text(c.length_name("hot-spot location x")).text(c.length_name("hot-spot location y"))
+        .text(c.length_name("hot-spot location z"));
+  if (has_linearization(*c.a))
+    r.text("linearized structural stress range [MPa]").text("stress range 1 mm below surface [MPa]")
+        .text("ratio linearized to surface range [-]").text("linearization problem");
   return r;
+}
+
+void shell_fields(const OutputContext& c, const StationResult& s, Row& r) {
+  if (!s.shell) {
+    for (int k = 0; k < 6; ++k) r.empty();
+    return;
+  }
+  const ShellStationInfo& i = *s.shell;
+  r.text(i.layer).text(i.origin).num(c.length(i.offset));
+  r.num(c.length(i.hot_spot.x())).num(c.length(i.hot_spot.y())).num(c.length(i.hot_spot.z()));
+}
+
+void linearization_fields(const StationResult& s, Row& r) {
+  if (!s.through_thickness) {
+    for (int k = 0; k < 4; ++k) r.empty();
+    return;
+  }
+  const ThroughThicknessResult& l = *s.through_thickness;
+  if (l.ok())
+    r.num(l.structural_range).num(l.one_mm_range).num(linearized_ratio(s)).empty();
+  else
+    r.empty().empty().empty().text(l.problem);
 }
 
 void nominal_fields(const OutputContext& c, const ToeResult& toe, const StationResult& s, Row& r) {
@@ -139,10 +169,18 @@ Row station_row(const OutputContext& c, int toe_number, const ToeResult& toe, co
   r.text(station_status(s)).text(toe.curve);
   if (damage_kind(*c.a)) damage_fields(c, toe, s, r);
   if (has_nominal(*c.a)) nominal_fields(c, toe, s, r);
+  if (has_shell(*c.a)) shell_fields(c, s, r);
+  if (has_linearization(*c.a)) linearization_fields(s, r);
   return r;
 }
 
 }  // namespace
+
+double linearized_ratio(const StationResult& s) {
+  if (!s.ok() || !s.through_thickness || !s.through_thickness->ok() || !(s.range > 0.0))
+    return std::numeric_limits<double>::quiet_NaN();
+  return s.through_thickness->structural_range / s.range;  // NaN stays NaN
+}
 
 std::string station_status(const StationResult& s) {
   if (!s.ok()) return "no result: " + s.problem;

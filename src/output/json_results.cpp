@@ -138,6 +138,51 @@ std::string status_of(const StationResult& s) {
 
 void write_station_nominal(JsonWriter& w, const Context& c, const StationResult& s);
 
+void text_or_null(JsonWriter& w, const char* name, const std::string& text) {
+  w.key(name);
+  if (text.empty())
+    w.null();
+  else
+    w.value(text);
+}
+
+void write_station_shell(JsonWriter& w, const Context& c, const StationResult& s) {
+  if (!s.shell) return;
+  const ShellStationInfo& i = *s.shell;
+  w.key("shell").begin_object().field("layer", i.layer).field("origin", i.origin);
+  w.field("offset", c.length(i.offset)).key("hot_spot_position").numbers(c.position(i.hot_spot));
+  w.field("thickness_mm", i.thickness);
+  std::vector<double> from;
+  for (double d : i.from_intersection) from.push_back(c.length(d));
+  w.key("from_intersection").numbers(from).end_object();
+}
+
+// The ratio of the linearized structural range to the surface range (as in stations.csv); NaN writes null.
+double ratio_of(const StationResult& s) {
+  if (!s.ok() || !s.through_thickness || !s.through_thickness->ok() || !(s.range > 0.0)) return std::nan("");
+  return s.through_thickness->structural_range / s.range;
+}
+
+void write_station_line(JsonWriter& w, const StationResult& s) {
+  if (!s.through_thickness) return;
+  const ThroughThicknessResult& l = *s.through_thickness;
+  w.key("through_thickness").begin_object().field("rule", l.rule).field("points", l.points);
+  w.field("thickness_mm", l.thickness);
+  text_or_null(w, "problem", l.problem);
+  text_or_null(w, "note", l.note);
+  w.field("stop_depth_mm", l.stop_depth);  // NaN writes null
+  w.key("membrane").numbers(l.membrane).key("bending").numbers(l.bending);
+  w.key("structural").numbers(l.structural).key("peak").numbers(l.peak);
+  w.key("hot_spot").numbers(l.hot_spot).key("one_mm").numbers(l.one_mm);
+  w.field("structural_range", l.structural_range);
+  w.key("range_steps");
+  if (l.range_from >= 0 && l.range_to >= 0)
+    w.begin_array(true).value(l.range_from).value(l.range_to).end_array();
+  else
+    w.null();
+  w.field("one_mm_range", l.one_mm_range).field("ratio_to_surface", ratio_of(s)).end_object();
+}
+
 void write_station(JsonWriter& w, const Context& c, const ToeResult& t, const StationResult& s) {
   w.begin_object().field("id", s.station.id).key("position").numbers(c.position(s.station.x));
   w.field("arc_length", c.length(s.station.arc));
@@ -156,6 +201,8 @@ void write_station(JsonWriter& w, const Context& c, const ToeResult& t, const St
   write_points(w, c, s);
   write_result(w, c, t, s);
   write_station_nominal(w, c, s);
+  write_station_shell(w, c, s);
+  write_station_line(w, s);
   w.end_object();
 }
 

@@ -42,6 +42,12 @@ std::string station_anchor(std::size_t toe, int station_id);
 std::string toe_section(const Context& c, std::size_t toe);
 // The nominal-stress method beside the hot-spot method of a toe with [toe.nominal]; "" for other toes.
 std::string nominal_section(const Context& c, std::size_t toe);
+// " Shell model: the toe reads the top layer ..." for a toe on a shell model; "" for other toes.
+std::string shell_toe_sentence(const ToeResult& toe);
+// The shell layer, origin and hot-spot location of a station (a paragraph); "" off shell models.
+std::string shell_station_facts(const Context& c, const StationResult& s);
+// The linearization table of a station beside its surface value; "" when the toe does not ask for it.
+std::string linearization_table(const Context& c, const StationResult& s);
 std::string critical_station_section(const Context& c, std::size_t toe, std::size_t station);
 
 }  // namespace toehold::report

@@ -248,7 +248,8 @@ std::string critical_station_section(const Context& c, std::size_t t, std::size_
   const StationResult& s = toe.stations[index];
   std::ostringstream os;
   os << "<section class=\"critical\">\n<h3 id=\"detail-" << station_anchor(t, s.station.id) << "\">'"
-     << esc(toe.plan.name) << "', station " << s.station.id << "</h3>\n" << station_facts(c, toe, s);
+     << esc(toe.plan.name) << "', station " << s.station.id << "</h3>\n" << station_facts(c, toe, s)
+     << shell_station_facts(c, s) << linearization_table(c, s);
   os << "<div class=\"plots\">\n" << readout_plot(c, t, s) << sn_plot(c, t, s) << "</div>\n";
   os << "<p class=\"note\">Read-out points (" << esc(toe.scheme.label) << ", " << esc(toe.scheme.source) << "):</p>\n"
      << point_table(c, s) << station_diagnostics(c, toe, s) << "</section>\n";

@@ -126,7 +126,8 @@ std::string toe_facts(const Context& c, const ToeResult& toe) {
   os << "<p>" << (toe.line.closed ? "Closed" : "Open") << " toe, " << sig(c.length(toe.line.length()), 5) << " "
      << esc(c.unit) << " long, plate thickness " << sig(toe.plan.thickness, 4) << " mm; " << esc(toe.scheme.label)
      << "; " << esc(toe.definition) << " hot-spot stress; " << esc(toe.curve) << ". " << n << " stations: "
-     << n - exceed - none << " pass, " << exceed << " exceed, " << none << " without result.";
+     << n - exceed - none << " pass, " << exceed << " exceed, " << none << " without result."
+     << shell_toe_sentence(toe);
   if (toe.worst >= 0) {
     const StationResult& w = toe.stations[static_cast<std::size_t>(toe.worst)];
     os << " Worst: station " << w.station.id << ", utilization " << fixed(w.utilization, 3) << ".";

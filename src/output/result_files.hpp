@@ -46,6 +46,24 @@ inline bool has_nominal(const Assessment& a) {
   return false;
 }
 
+// True when the model is a shell model (some toe reads a shell layer): the files then carry the shell columns.
+inline bool has_shell(const Assessment& a) {
+  for (const auto& t : a.toes)
+    if (t.plan.shell) return true;
+  return false;
+}
+
+// True when at least one toe asks for through-thickness linearization: the files then carry its columns.
+inline bool has_linearization(const Assessment& a) {
+  for (const auto& t : a.toes)
+    if (t.plan.through_thickness) return true;
+  return false;
+}
+
+// The linearized structural range over the surface hot-spot range of a station: NaN when either side has no
+// value (no result, no line, unit-cases, a zero surface range).
+double linearized_ratio(const StationResult& s);
+
 // The status column and flag of a station: "ok", "exceeds", or "no result: <problem>".
 std::string station_status(const StationResult& s);
 

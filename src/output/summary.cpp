@@ -117,6 +117,41 @@ std::string nominal_table(const Assessment& a) {
   return os.str();
 }
 
+// Toes with through_thickness: the largest ratio of the linearized structural range to the surface range, and how
+// many stations have no linearized value.
+std::string linearization_line(const ToeResult& t) {
+  double largest = -1.0;
+  int at = -1, without = 0;
+  for (const StationResult& s : t.stations) {
+    if (!s.through_thickness || !s.through_thickness->ok()) {
+      ++without;
+      continue;
+    }
+    if (!s.ok() || !(s.range > 0.0) || !std::isfinite(s.through_thickness->structural_range)) continue;
+    const double ratio = s.through_thickness->structural_range / s.range;
+    if (ratio <= largest) continue;
+    largest = ratio;
+    at = s.station.id;
+  }
+  std::ostringstream os;
+  os << "  toe '" << t.plan.name << "': largest ratio linearized / surface range ";
+  if (at >= 0)
+    os << fixed(largest, 3) << " at station " << at;
+  else
+    os << "-";
+  os << "; " << without << " of " << t.stations.size() << " stations without a linearized value\n";
+  return os.str();
+}
+
+std::string linearization_lines(const Assessment& a) {
+  std::string text;
+  for (const ToeResult& t : a.toes)
+    if (t.plan.through_thickness) text += linearization_line(t);
+  if (text.empty()) return "";
+  return "Through-thickness linearization beside the surface extrapolation (per station in stations.csv):\n" + text +
+         "\n";
+}
+
 std::string loading_line(const Assessment& a) {
   const auto& p = a.plan;
   std::ostringstream os;
@@ -136,7 +171,8 @@ std::string format_assessment_summary(const Assessment& a, const std::string& ou
                                       const std::vector<std::string>& files) {
   std::ostringstream os;
   os << "toehold " << TOEHOLD_VERSION << " - " << (a.plan.title.empty() ? a.plan.path : a.plan.title) << "\n";
-  os << "model: " << a.model_points << " points, " << a.model_cells << " volume cells; units "
+  os << "model: " << a.model_points << " points, " << a.model_cells << (a.plan.model.shell ? " shell" : " volume")
+     << " cells; units "
      << to_string(a.plan.model.length_unit) << ", " << to_string(a.plan.model.stress_unit)
      << " (results in MPa); " << a.steps.size() << " load steps\n";
   const bool damage = a.plan.loading.kind != LoadingKind::range;
@@ -156,6 +192,7 @@ std::string format_assessment_summary(const Assessment& a, const std::string& ou
     os << "Nominal-stress method beside the hot-spot method (hot spot and SCF at the worst station; nominal "
           "source and detail class per toe in report.html):\n"
        << nominal_table(a) << "\n";
+  os << linearization_lines(a);
   os << a.stations() << " stations: " << a.stations() - a.stations_without_result() - a.stations_exceeding()
      << " pass, " << a.stations_exceeding() << " exceed, " << a.stations_without_result() << " without result\n";
   if (!output_folder.empty()) {

@@ -80,6 +80,59 @@ struct StationArrays {
   // Damage kinds only (null for range).
   vtkSmartPointer<vtkDoubleArray> damage, life_repeats, life_years, equivalent, governing_range, governing_share;
 
+  // Shell models only: the layer read, the origin of the distances and the hot-spot location (which lies off the
+  // station point when the distances start at the weld toe).
+  vtkSmartPointer<vtkIntArray> shell_layer, weld_toe_origin;
+  vtkSmartPointer<vtkDoubleArray> shell_offset, hot_spot_location;
+  // Toes with through_thickness only: the linearization beside the surface value.
+  vtkSmartPointer<vtkIntArray> has_line;
+  vtkSmartPointer<vtkDoubleArray> structural_range, one_mm_range, ratio;
+  std::vector<vtkSmartPointer<vtkDoubleArray>> membrane, bending, structural;  // one per load step
+
+  void add_shell_arrays(const OutputContext& c, vtkPolyData* data) {
+    shell_layer = ints(data, "shell layer [1 = top, 2 = bottom]");
+    weld_toe_origin = ints(data, "distances from weld toe [1 = yes]");
+    shell_offset = doubles(data, c.length_name("offset from intersection line"));
+    hot_spot_location = doubles(data, c.length_name("hot-spot location"), 3);
+  }
+
+  void add_linearization_arrays(const OutputContext& c, vtkPolyData* data) {
+    has_line = ints(data, "has linearization [1 = yes]");
+    structural_range = doubles(data, "linearized structural stress range [MPa]");
+    one_mm_range = doubles(data, "stress range 1 mm below surface [MPa]");
+    ratio = doubles(data, "ratio linearized to surface range [-]");
+    for (const auto& step : c.a->steps) {
+      membrane.push_back(doubles(data, "membrane stress " + step + " [MPa]"));
+      bending.push_back(doubles(data, "bending stress " + step + " [MPa]"));
+      structural.push_back(doubles(data, "linearized structural stress " + step + " [MPa]"));
+    }
+  }
+
+  void fill_shell(vtkIdType row, const StationResult& s, const OutputContext& c) {
+    if (!shell_layer || !s.shell) return;
+    shell_layer->SetValue(row, s.shell->layer == "top" ? 1 : 2);
+    weld_toe_origin->SetValue(row, s.shell->origin == "weld-toe" ? 1 : 0);
+    shell_offset->SetValue(row, c.length(s.shell->offset));
+    set_vector(hot_spot_location, row, s.shell->hot_spot / c.mm_per_unit);
+  }
+
+  static void put_steps(std::vector<vtkSmartPointer<vtkDoubleArray>>& arrays, vtkIdType row,
+                        const std::vector<double>& values) {
+    for (std::size_t k = 0; k < arrays.size() && k < values.size(); ++k) arrays[k]->SetValue(row, values[k]);
+  }
+
+  void fill_linearization(vtkIdType row, const StationResult& s) {
+    if (!has_line || !s.through_thickness || !s.through_thickness->ok()) return;
+    const ThroughThicknessResult& l = *s.through_thickness;
+    has_line->SetValue(row, 1);
+    structural_range->SetValue(row, l.structural_range);
+    one_mm_range->SetValue(row, l.one_mm_range);
+    ratio->SetValue(row, linearized_ratio(s));
+    put_steps(membrane, row, l.membrane);
+    put_steps(bending, row, l.bending);
+    put_steps(structural, row, l.structural);
+  }
+
   void add_damage_arrays(vtkPolyData* data) {
     damage = doubles(data, "damage [-]");
     life_repeats = doubles(data, "life [repeats]");
@@ -128,6 +181,8 @@ struct StationArrays {
     for (const auto& step : c.a->steps) hot_spot.push_back(doubles(data, hot_spot_name(step)));
     if (c.a->plan.loading.kind != LoadingKind::range) add_damage_arrays(data);
     if (has_nominal(*c.a)) add_nominal_arrays(data);
+    if (has_shell(*c.a)) add_shell_arrays(c, data);
+    if (has_linearization(*c.a)) add_linearization_arrays(c, data);
   }
 
   void fill(vtkIdType row, int toe_number, const StationResult& s, const OutputContext& c) {
@@ -139,6 +194,8 @@ struct StationArrays {
       set_vector(normal, row, s.station.frame.normal);
       set_vector(readout, row, s.station.frame.readout);
     }
+    fill_shell(row, s, c);
+    fill_linearization(row, s);
     if (!s.ok()) return;
     has_result->SetValue(row, 1);
     exceeds->SetValue(row, s.exceeds() ? 1 : 0);

@@ -58,7 +58,7 @@ TEST_F(SampleJson, CheckerRejectsADocumentMissingAKey) {
 }
 
 TEST_F(SampleJson, CarriesVersionUnitsAndValuesAsDocumented) {
-  EXPECT_NE(json.find("\"schema_version\": \"1.1\""), std::string::npos);
+  EXPECT_NE(json.find("\"schema_version\": \"1.2\""), std::string::npos);
   EXPECT_NE(json.find("\"units\": {\"length\": \"m\", \"stress\": \"MPa\"}"), std::string::npos);
   EXPECT_NE(json.find("\"life_cycles\": \"infinite\""), std::string::npos);  // station 2 of toe 1
   EXPECT_NE(json.find("\"utilization\": 1.675"), std::string::npos);

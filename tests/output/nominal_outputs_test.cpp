@@ -73,7 +73,7 @@ TEST(NominalOutputs, JsonCarriesTheNominalMethodAndValidates) {
   const std::string json = format_results_json(a, collect_provenance(a), LengthUnit::m);
   std::string said;
   EXPECT_EQ(check_schema(json, said), 0) << said;
-  EXPECT_NE(json.find("\"schema_version\": \"1.1\""), std::string::npos);
+  EXPECT_NE(json.find("\"schema_version\": \"1.2\""), std::string::npos);
   EXPECT_NE(json.find("\"source\": \"given\""), std::string::npos);
   EXPECT_NE(json.find("\"concentration_factor\": 1.5075"), std::string::npos);
   EXPECT_NE(json.find("\"governing\": \"nominal\""), std::string::npos);

@@ -13,7 +13,7 @@ namespace toehold {
 
 // Version of the results.json layout: the major number changes when a key is removed or changes meaning, the minor
 // number when keys are added.
-inline constexpr const char* kResultsSchemaVersion = "1.1";
+inline constexpr const char* kResultsSchemaVersion = "1.2";
 
 // The JSON text of results.json.
 //   a: the assessment (positions in mm, stresses in MPa); p: its provenance;
