@@ -2,9 +2,7 @@
 # End to end: bad input gives a one-line error naming the problem, exit code 2, and no output folder.
 set -uo pipefail
 bin=$1; src=$2
-work=$(mktemp -d)
-trap 'rm -rf "$work"' EXIT
-fail() { echo "FAIL: $*"; exit 1; }
+source "$(dirname "$0")/common.bash"
 
 expect_error() {  # expect_error <plan> <text the message must contain>
   local plan=$1 text=$2

@@ -9,10 +9,9 @@ py=/usr/bin/python3
 if ! "$py" -c "import vtk, numpy" 2>/dev/null; then
   echo "SKIP: $py cannot import vtk and numpy (install python3-vtk9 python3-numpy)"; exit 0
 fi
-work=$(mktemp -d)
-trap 'rm -rf "$work"' EXIT
-"$bin" run "$src/meshes/demo/frame_rail.toml" --output "$work/out" --quiet > /dev/null 2>&1
-[ -s "$work/out/stations.csv" ] || { echo "FAIL: no stations.csv"; exit 1; }
+source "$(dirname "$0")/common.bash"
+run_plan "$src/meshes/demo/frame_rail.toml" "$work/out" "0 1"
+[ -s "$work/out/stations.csv" ] || fail "no stations.csv"
 "$py" "$src/meshes/demo/check_demo.py" "$src/meshes/demo/frame_rail.pvd" > "$work/probe.txt" || exit 1
 "$py" - "$work/out/stations.csv" "$work/probe.txt" <<'PY'
 import csv, re, sys

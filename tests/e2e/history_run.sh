@@ -3,15 +3,10 @@
 # bad history, and the curve look-up subcommand.
 set -uo pipefail
 bin=$1; src=$2
-work=$(mktemp -d)
-trap 'rm -rf "$work"' EXIT
-fail() { echo "FAIL: $*"; exit 1; }
+source "$(dirname "$0")/common.bash"
 demo="$src/meshes/demo"
 
-"$bin" run "$demo/frame_rail_history.toml" --output "$work/out" --quiet > "$work/summary.txt" 2>&1
-code=$?
-cat "$work/summary.txt"
-[ "$code" = 0 ] || [ "$code" = 1 ] || fail "exit code $code, expected 0 or 1"
+run_plan "$demo/frame_rail_history.toml" "$work/out" "0 1"
 grep -q "counting: ASTM E1049-85 sec. 5.4.5" "$work/summary.txt" || fail "summary lacks the counting rule"
 grep -q "checked by a qualified engineer" "$work/summary.txt" || fail "summary lacks the caution"
 head -1 "$work/out/stations.csv" | grep -q "damage \[-\]" || fail "stations.csv lacks the damage column"

@@ -4,15 +4,9 @@
 # one linearization line per toe. The plain demo plan writes no such columns.
 set -uo pipefail
 bin=$1; src=$2
-here=$(cd "$(dirname "$0")" && pwd)
-work=$(mktemp -d)
-trap 'rm -rf "$work"' EXIT
+source "$(dirname "$0")/common.bash"
 out=$work/results
-fail() { echo "FAIL: $*"; exit 1; }
-"$bin" run "$src/meshes/demo/frame_rail_linearized.toml" --output "$out" --quiet > "$work/summary.txt" 2>&1
-code=$?
-cat "$work/summary.txt"
-[ "$code" = 0 ] || [ "$code" = 1 ] || fail "exit code $code, expected 0 or 1"
+run_plan "$src/meshes/demo/frame_rail_linearized.toml" "$out" "0 1"
 for f in stations.vtp readout.vtp model.vtu results.pvd stations.csv results.json report.html; do
   [ -s "$out/$f" ] || fail "missing output $f"
 done

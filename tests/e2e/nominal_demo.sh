@@ -4,20 +4,15 @@
 # (validated against docs/results-schema.md) and a section of report.html.
 set -uo pipefail
 bin=$1; src=$2
-here=$(cd "$(dirname "$0")" && pwd)
-out=$(mktemp -d)/results
-trap 'rm -rf "$(dirname "$out")"' EXIT
-"$bin" run "$src/meshes/demo/frame_rail_nominal.toml" --output "$out" --quiet > "$out.txt" 2>&1
-code=$?
-cat "$out.txt"
-fail() { echo "FAIL: $*"; exit 1; }
-[ "$code" = 0 ] || [ "$code" = 1 ] || fail "exit code $code, expected 0 or 1"
-grep -q "Nominal-stress method beside the hot-spot method" "$out.txt" || fail "summary lacks the nominal table"
+source "$(dirname "$0")/common.bash"
+out=$work/results
+run_plan "$src/meshes/demo/frame_rail_nominal.toml" "$out" "0 1"
+grep -q "Nominal-stress method beside the hot-spot method" "$work/summary.txt" || fail "summary lacks the nominal table"
 # The section 50 mm from the attachment carries the rail plate's membrane stress: 144000 N / (240 x 12 mm2) = 50 MPa
 # running and -43200 / 2880 = -15 MPa braking (meshes/demo/README.md), a range of 65.0 MPa [D].
-grep -Eq "^south toe +section +65\.0 " "$out.txt" || fail "south toe nominal range is not 65.0 MPa"
-grep -q "infinite-life weld check: factor of safety" "$out.txt" || fail "summary lacks the infinite-life check"
-grep -Eq "^north toe +surface-distance " "$out.txt" || fail "north toe lacks its surface-distance row"
+grep -Eq "^south toe +section +65\.0 " "$work/summary.txt" || fail "south toe nominal range is not 65.0 MPa"
+grep -q "infinite-life weld check: factor of safety" "$work/summary.txt" || fail "summary lacks the infinite-life check"
+grep -Eq "^north toe +surface-distance " "$work/summary.txt" || fail "north toe lacks its surface-distance row"
 head -1 "$out/stations.csv" | grep -q "structural stress concentration factor \[-\]" || fail "CSV lacks the SCF column"
 head -1 "$out/stations.csv" | grep -q "nominal utilization \[-\]" || fail "CSV lacks the nominal utilization column"
 grep -q "nominal stress range \[MPa\]" "$out/stations.vtp" || fail "stations.vtp lacks the nominal range array"

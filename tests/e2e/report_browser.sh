@@ -3,19 +3,14 @@
 # visible message, where Chromium is not installed (.ci/install-deps installs it, so CI runs it).
 set -uo pipefail
 bin=$1; src=$2
-here=$(cd "$(dirname "$0")" && pwd)
 browser=$(command -v chromium || command -v chromium-browser || true)
 if [ -z "$browser" ]; then
   echo "SKIP: report_browser: Chromium is not installed (apt-get install chromium); report.html was not rendered"
   exit 0
 fi
-work=$(mktemp -d)
-trap 'rm -rf "$work"' EXIT
-fail() { echo "FAIL: $*"; exit 1; }
+source "$(dirname "$0")/common.bash"
 out=$work/results
-"$bin" run "$src/meshes/demo/frame_rail.toml" --output "$out" --quiet > "$work/summary.txt" 2>&1
-code=$?
-[ "$code" = 0 ] || [ "$code" = 1 ] || { cat "$work/summary.txt"; fail "exit code $code"; }
+run_plan "$src/meshes/demo/frame_rail.toml" "$out" "0 1"
 png=${TOEHOLD_REPORT_PNG:-$work/report.png}
 timeout 120 "$browser" --headless --no-sandbox --disable-gpu --disable-quic --no-first-run \
   --disable-background-networking --disable-component-update --disable-sync --user-data-dir="$work/profile" \

@@ -4,14 +4,9 @@
 # hashes equal sha256sum's of the inputs.
 set -uo pipefail
 bin=$1; src=$2
-here=$(cd "$(dirname "$0")" && pwd)
-work=$(mktemp -d)
-trap 'rm -rf "$work"' EXIT
+source "$(dirname "$0")/common.bash"
 out=$work/results
-fail() { echo "FAIL: $*"; exit 1; }
-"$bin" run "$src/meshes/demo/frame_rail.toml" --output "$out" --quiet > "$work/summary.txt" 2>&1
-code=$?
-[ "$code" = 0 ] || [ "$code" = 1 ] || { cat "$work/summary.txt"; fail "exit code $code, expected 0 or 1"; }
+run_plan "$src/meshes/demo/frame_rail.toml" "$out" "0 1"
 for f in report.html results.json view_results.py; do
   [ -s "$out/$f" ] || fail "missing output $f"
   grep -q "$out/$f" "$work/summary.txt" || fail "the summary does not list $out/$f"

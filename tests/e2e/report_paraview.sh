@@ -5,20 +5,15 @@
 # installs ParaView after the build and runs this script on its own, with TOEHOLD_REQUIRE_PARAVIEW=1 (no skipping).
 set -uo pipefail
 bin=$1; src=$2
-here=$(cd "$(dirname "$0")" && pwd)
 if ! command -v pvbatch > /dev/null || ! command -v xvfb-run > /dev/null; then
   if [ "${TOEHOLD_REQUIRE_PARAVIEW:-0}" = 1 ]; then echo "FAIL: pvbatch or xvfb-run is missing"; exit 1; fi
   echo "SKIP: report_paraview: pvbatch or xvfb-run is not installed (apt-get install paraview python3-paraview xvfb," \
        "which removes libvtk9-dev); view_results.py was not run"
   exit 0
 fi
-work=$(mktemp -d)
-trap 'rm -rf "$work"' EXIT
-fail() { echo "FAIL: $*"; exit 1; }
+source "$(dirname "$0")/common.bash"
 out=$work/results
-"$bin" run "$src/meshes/demo/frame_rail.toml" --output "$out" --quiet > "$work/summary.txt" 2>&1
-code=$?
-[ "$code" = 0 ] || [ "$code" = 1 ] || { cat "$work/summary.txt"; fail "exit code $code"; }
+run_plan "$src/meshes/demo/frame_rail.toml" "$out" "0 1"
 flagged=$(python3 -c "import json, sys; print(json.load(open(sys.argv[1]))['counts']['exceed'])" "$out/results.json")
 [ "$flagged" -gt 0 ] || fail "the demo has no station with utilization > 1 to look for"
 png=${TOEHOLD_PARAVIEW_PNG:-$work/view.png}
