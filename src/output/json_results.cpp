@@ -56,7 +56,9 @@ void write_run(JsonWriter& w, const Context& c, LengthUnit out_unit) {
   w.key("units").begin_object(true).field("length", to_string(out_unit)).field("stress", "MPa").end_object();
   w.key("model").begin_object().field("file", plan.model.file);
   w.field("length_unit", to_string(plan.model.length_unit)).field("stress_unit", to_string(plan.model.stress_unit));
-  w.field("points", c.a.model_points).field("volume_cells", c.a.model_cells).end_object();
+  // volume_cells counts the model's cells: volume cells of a solid model, shell cells of a shell model.
+  w.field("points", c.a.model_points).field("volume_cells", c.a.model_cells);
+  w.field("cell_kind", plan.model.shell ? "shell" : "volume").end_object();
   w.key("steps").strings(c.a.steps);
   w.key("loading").begin_object().field("kind", to_string(plan.loading.kind)).field("counting", c.a.counting);
   w.field("repeats_per_year", plan.loading.repeats_per_year).end_object();

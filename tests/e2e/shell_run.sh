@@ -12,6 +12,8 @@ for f in stations.vtp readout.vtp model.vtu results.pvd stations.csv results.jso
   [ -s "$out/$f" ] || fail "missing output $f"
 done
 python3 "$here/report_schema_check.py" "$out/results.json" "$src/docs/results-schema.md" || fail "schema"
+python3 -c "import json, sys; sys.exit(json.load(open(sys.argv[1]))['model']['cell_kind'] != 'shell')" \
+  "$out/results.json" || fail "results.json does not say the model is a shell model"
 grep -q "Shell model: the toe reads the <b>top</b> layer" "$out/report.html" || fail "report lacks the shell sentence"
 /usr/bin/python3 - "$out/stations.csv" <<'PY' || fail "stations.csv values"
 import csv, math, sys
