@@ -204,14 +204,18 @@ std::optional<LoadHistory> read_history(const Plan& plan, Reporter& reporter) {
 void evaluate_station(const Plan& plan, StationResult& r, const std::vector<InPlaneStress>& steps,
                       const detail::ToeDamage& damage, HotSpotDefinition definition, const ToePlan& toe,
                       const SnCurve& curve, const std::optional<LoadHistory>& history) {
-  switch (plan.loading.kind) {
-    case LoadingKind::range:
-      detail::evaluate_range(r, steps, definition, detail::definition_options(toe));
-      detail::check_range(r, curve, plan.requirement);
-      return;
-    case LoadingKind::series: detail::evaluate_series(r, steps, damage); return;
-    case LoadingKind::blocks: detail::evaluate_blocks(r, steps, damage, plan.loading.blocks); return;
-    case LoadingKind::unit_cases: detail::evaluate_unit_cases(r, steps, damage, *history, definition); return;
+  try {
+    switch (plan.loading.kind) {
+      case LoadingKind::range:
+        detail::evaluate_range(r, steps, definition, detail::definition_options(toe));
+        detail::check_range(r, curve, plan.requirement);
+        return;
+      case LoadingKind::series: detail::evaluate_series(r, steps, damage); return;
+      case LoadingKind::blocks: detail::evaluate_blocks(r, steps, damage, plan.loading.blocks); return;
+      case LoadingKind::unit_cases: detail::evaluate_unit_cases(r, steps, damage, *history, definition); return;
+    }
+  } catch (const Error& e) {
+    throw Error("toe '" + toe.name + "', station " + std::to_string(r.station.id) + ": " + e.what());
   }
 }
 

@@ -2,6 +2,7 @@
 // as the hot-spot stress: the one stress-range check (nominal/nominal_check) for loading kind range, rainflow
 // counting and the Miner sum (loading/spectrum_damage) for series, unit-cases and blocks.
 #include "nominal_step.hpp"
+#include "toehold/fatigue/sn_catalogue.hpp"
 
 #include "toehold/common/error.hpp"
 
@@ -81,12 +82,12 @@ std::vector<StressCycle> counted_cycles(const Plan& plan, const std::vector<doub
 NominalRules nominal_rules(const Plan& plan, const ToePlan& toe, const SnCurve& curve) {
   NominalRules r{curve, {}, {}, ResidueRule::half_cycles, 1.0};
   const RequirementPlan& req = plan.requirement;
-  r.requirement = {req.cycles > 0 ? req.cycles : 2e6, req.gamma_M, req.gamma_F, Amplitude::constant};
+  r.requirement = {req.cycles, req.gamma_M, req.gamma_F, Amplitude::constant};
   r.damage.gamma_F = req.gamma_F;
   r.damage.gamma_M = req.gamma_M;
   // The allowable Miner sum of the nominal curve, by the rule of ToePlan::damage_limit.
-  const bool one = curve.edition().rfind("EN 1993", 0) == 0 || curve.edition().rfind("DNV", 0) == 0;
-  r.damage.damage_limit = req.damage_limit_given ? req.damage_limit : one ? 1.0 : 0.5;
+  std::string basis;
+  r.damage.damage_limit = req.damage_limit_given ? req.damage_limit : default_damage_limit(curve, basis);
   r.damage.repeats_per_year = plan.loading.repeats_per_year;
   r.damage.mean_stress = toe.mean_stress;
   r.residue = plan.loading.repeating_history ? ResidueRule::repeat_history : ResidueRule::half_cycles;

@@ -44,7 +44,12 @@ void parallel_for(std::size_t n, std::size_t min_chunk, const Body& body) {
   };
   std::vector<std::thread> threads;
   threads.reserve(chunks - 1);
-  for (std::size_t c = 1; c < chunks; ++c) threads.emplace_back(run, c);
+  std::size_t started = 1;
+  try {
+    for (; started < chunks; ++started) threads.emplace_back(run, started);
+  } catch (...) {  // a thread could not be started: run the remaining chunks here
+    for (std::size_t c = started; c < chunks; ++c) run(c);
+  }
   run(0);
   for (std::thread& t : threads) t.join();
   for (const std::exception_ptr& e : errors)

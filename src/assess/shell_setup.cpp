@@ -109,8 +109,14 @@ PlacedShellToe place_shell_toe(const ShellGeometry& g, const ToePlan& toe, const
   ShellToe traced = trace_shell_toe(g.surface, spec);
   r.line = traced.line;
   for (ShellStation& st : traced.stations) {
+    // The station's own plate thickness places its points; the extrapolation weights are the toe's (r.scheme):
+    // every scheme scales all its distances by t or none, so the weights do not depend on t.
     const double t = st.thickness > 0 ? st.thickness : toe.thickness;
-    place_shell_readout(g.surface, spec, st, scheme_for(toe, t).distances);
+    try {
+      place_shell_readout(g.surface, spec, st, scheme_for(toe, t).distances);
+    } catch (const Error& e) {
+      throw Error(toe_label(toe) + ", station " + std::to_string(st.id) + ": " + e.what());
+    }
     out.toe.stations.push_back(placed_station(st, spec));
     out.layers.push_back(st.layer);
   }

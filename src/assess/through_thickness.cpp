@@ -2,6 +2,8 @@
 // (Xiao and Yamada 2004), beside the surface extrapolation.
 #include "through_thickness.hpp"
 
+#include "toehold/common/error.hpp"
+
 #include <cmath>
 #include <sstream>
 
@@ -93,7 +95,13 @@ void record_through_thickness_step(ThicknessToe& toe, const StressField& field) 
     if (!s.line.problem.empty()) continue;
     std::vector<Tensor> samples;
     for (const Host& h : s.line.hosts) samples.push_back(interpolate(field, h));
-    s.steps.push_back(linearize(s.x, samples, toe.thickness, toe.plan.rule));
+    try {
+      s.steps.push_back(linearize(s.x, samples, toe.thickness, toe.plan.rule));
+    } catch (const Error& e) {  // e.g. a sample that is not finite: the station's linearization only is void
+      s.line.problem = std::string("the linearization failed at load step ") + std::to_string(s.steps.size() + 1) +
+                       ": " + e.what();
+      s.steps.clear();
+    }
   }
 }
 

@@ -262,4 +262,14 @@ SnCurve parse_sn_curve(std::string_view text) {
   unknown_curve(text);
 }
 
+double default_damage_limit(const SnCurve& curve, std::string& basis) {
+  const std::string& e = curve.edition();
+  if (e.rfind("EN 1993", 0) == 0 || e.rfind("DNV", 0) == 0) {
+    basis = "EN 1993-1-9 / DNVGL-RP-C203 allowable Miner sum for its curve";
+    return 1.0;
+  }
+  basis = "IIW 2016 sec. 4.3.1 allowable Miner sum";
+  return 0.5;
+}
+
 }  // namespace toehold

@@ -1,6 +1,8 @@
 // results.json after docs/results-schema.md: one writer function per object of the schema.
 #include "toehold/output/json_results.hpp"
 
+#include "result_files.hpp"
+
 #include "toehold/output/json_writer.hpp"
 #include "toehold/output/summary.hpp"
 #include "toehold/nominal/names.hpp"
@@ -160,11 +162,6 @@ void write_station_shell(JsonWriter& w, const Context& c, const StationResult& s
 }
 
 // The ratio of the linearized structural range to the surface range (as in stations.csv); NaN writes null.
-double ratio_of(const StationResult& s) {
-  if (!s.ok() || !s.through_thickness || !s.through_thickness->ok() || !(s.range > 0.0)) return std::nan("");
-  return s.through_thickness->structural_range / s.range;
-}
-
 void write_station_line(JsonWriter& w, const StationResult& s) {
   if (!s.through_thickness) return;
   const ThroughThicknessResult& l = *s.through_thickness;
@@ -182,7 +179,7 @@ void write_station_line(JsonWriter& w, const StationResult& s) {
     w.begin_array(true).value(l.range_from).value(l.range_to).end_array();
   else
     w.null();
-  w.field("one_mm_range", l.one_mm_range).field("ratio_to_surface", ratio_of(s)).end_object();
+  w.field("one_mm_range", l.one_mm_range).field("ratio_to_surface", detail::linearized_ratio(s)).end_object();
 }
 
 void write_station(JsonWriter& w, const Context& c, const ToeResult& t, const StationResult& s) {

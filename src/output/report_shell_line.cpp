@@ -2,6 +2,7 @@
 // station the through-thickness linearization (membrane, bending, structural, peak, 1 mm below) beside the surface
 // extrapolation.
 #include "report_parts.hpp"
+#include "result_files.hpp"
 
 #include <cmath>
 #include <sstream>
@@ -35,13 +36,13 @@ std::string step_rows(const Context& c, const StationResult& s) {
 
 std::string range_row(const StationResult& s) {
   const ThroughThicknessResult& l = *s.through_thickness;
-  const bool ratio = s.ok() && s.range > 0.0 && std::isfinite(l.structural_range);
+  const double ratio = detail::linearized_ratio(s);
   std::ostringstream os;
   os << "<tr><td class=\"text\">range</td><td>-</td><td>-</td><td>-</td><td>-</td>"
      << td("structural-range", fixed(l.structural_range, 1)) << td("one-mm-range", fixed(l.one_mm_range, 1))
      << td("surface-range", s.ok() ? fixed(s.range, 1) : "-") << "</tr>\n";
   os << "<tr><td class=\"text\">ratio linearized / surface range [-]</td>"
-     << td("ratio", ratio ? fixed(l.structural_range / s.range, 3) : "-") << "</tr>\n";
+     << td("ratio", std::isfinite(ratio) ? fixed(ratio, 3) : "-") << "</tr>\n";
   return os.str();
 }
 

@@ -1,5 +1,7 @@
 #include "toehold/output/summary.hpp"
 
+#include "result_files.hpp"
+
 #include "toehold/nominal/names.hpp"
 
 #include <algorithm>
@@ -127,9 +129,8 @@ std::string linearization_line(const ToeResult& t) {
       ++without;
       continue;
     }
-    if (!s.ok() || !(s.range > 0.0) || !std::isfinite(s.through_thickness->structural_range)) continue;
-    const double ratio = s.through_thickness->structural_range / s.range;
-    if (ratio <= largest) continue;
+    const double ratio = detail::linearized_ratio(s);
+    if (!std::isfinite(ratio) || ratio <= largest) continue;
     largest = ratio;
     at = s.station.id;
   }

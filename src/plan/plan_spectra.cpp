@@ -101,8 +101,6 @@ SnCurve build_curve(const Context& ctx, const Fields& f, const toml::table& tabl
   return user_segment_curve(name, segments, cutoff, curve_kind(f));
 }
 
-bool family_is(const SnCurve& curve, std::string_view prefix) { return curve.edition().rfind(prefix, 0) == 0; }
-
 }  // namespace
 
 std::vector<StepPlan> expand_pvd_steps(const Fields& f, const StepPlan& step) {
@@ -181,12 +179,10 @@ void resolve_damage_limits(const Context& ctx, Plan& plan) {
     } catch (const Error& e) {
       throw Error(location(ctx.file, static_cast<unsigned>(toe.line)) + "toe '" + toe.name + "': " + e.what());
     }
-    const bool one = family_is(*curve, "EN 1993") || family_is(*curve, "DNV");
-    toe.damage_limit = one ? 1.0 : 0.5;
-    ctx.defaults->push_back("toe '" + toe.name + "': damage_limit = " + (one ? "1" : "0.5") + " (" +
-                            (one ? "EN 1993-1-9 / DNVGL-RP-C203 allowable Miner sum for its curve"
-                                 : "IIW 2016 sec. 4.3.1 allowable Miner sum") +
-                            ")");
+    std::string basis;
+    toe.damage_limit = default_damage_limit(*curve, basis);
+    ctx.defaults->push_back("toe '" + toe.name + "': damage_limit = " + (toe.damage_limit == 1.0 ? "1" : "0.5") +
+                            " (" + basis + ")");
   }
 }
 

@@ -63,4 +63,8 @@ SnCurve parse_sn_curve(std::string_view text);
 // The accepted spellings, as listed in parse errors.
 std::string sn_curve_spellings();
 
+// The allowable Miner sum a curve's code gives when the plan names none: 1.0 for EN 1993-1-9 and DNVGL-RP-C203
+// curves, 0.5 for IIW and user curves (IIW 2016 sec. 4.3.1 [M]). `basis` receives the reason, for the outputs.
+double default_damage_limit(const SnCurve& curve, std::string& basis);
+
 }  // namespace toehold
