@@ -8,16 +8,32 @@
 #include <vtkDataArray.h>
 #include <vtkPointData.h>
 
+#include <algorithm>
 #include <cmath>
+#include <cstdint>
+#include <cstring>
+#include <limits>
+#include <functional>
 #include <optional>
 
 namespace toehold {
 namespace {
 
+// One array wherever it lives (a VTK array or memory read straight from a file): Float32/Float64 values are
+// read from memory, other VTK types through GetComponent.
 struct Found {
-  vtkDataArray* array = nullptr;
+  std::string name;
   Association where = Association::point;
+  int comps = 0;
+  vtkIdType tuples = 0;
+  std::vector<std::string> component_names;
+  const float* f32 = nullptr;
+  const double* f64 = nullptr;
+  vtkDataArray* other = nullptr;
 };
+
+// Finds the array a name of the stress spec refers to; throws Error naming the file when there is none.
+using Finder = std::function<Found(const std::string&)>;
 
 const char* entity(Association where) { return where == Association::point ? "point" : "cell"; }
 
@@ -32,13 +48,48 @@ std::string array_list(vtkFieldData* data) {
   return out.empty() ? "none" : out;
 }
 
+Found from_vtk(vtkDataArray* a, Association where) {
+  Found f{a->GetName(), where, a->GetNumberOfComponents(), a->GetNumberOfTuples(), {}, nullptr, nullptr, nullptr};
+  for (int c = 0; c < f.comps; ++c) {
+    const char* name = a->GetComponentName(c);
+    f.component_names.emplace_back(name ? name : "");
+  }
+  if (auto* fa = vtkAOSDataArrayTemplate<float>::FastDownCast(a)) f.f32 = fa->GetPointer(0);
+  else if (auto* da = vtkAOSDataArrayTemplate<double>::FastDownCast(a)) f.f64 = da->GetPointer(0);
+  else f.other = a;
+  return f;
+}
+
 // The point or cell array `name` (point data first). Throws Error listing the file's arrays when there is none.
 Found find_array(const Mesh& mesh, const std::string& name) {
   vtkUnstructuredGrid* grid = mesh.grid();
-  if (vtkDataArray* a = grid->GetPointData()->GetArray(name.c_str())) return {a, Association::point};
-  if (vtkDataArray* a = grid->GetCellData()->GetArray(name.c_str())) return {a, Association::cell};
+  if (vtkDataArray* a = grid->GetPointData()->GetArray(name.c_str())) return from_vtk(a, Association::point);
+  if (vtkDataArray* a = grid->GetCellData()->GetArray(name.c_str())) return from_vtk(a, Association::cell);
   throw Error(mesh.source() + ": has no numeric point or cell array named '" + name + "'; its point arrays are: " +
               array_list(grid->GetPointData()) + "; its cell arrays are: " + array_list(grid->GetCellData()));
+}
+
+Found from_view(const StressArrayView& v) {
+  return {v.name, v.where, v.components, static_cast<vtkIdType>(v.tuples), v.component_names, v.f32, v.f64, nullptr};
+}
+
+std::string view_list(const std::vector<StressArrayView>& arrays, Association where) {
+  std::string out;
+  for (const StressArrayView& v : arrays) {
+    if (v.where != where) continue;
+    out += (out.empty() ? "" : ", ") + v.name;
+    if (v.components != 1) out += " (" + std::to_string(v.components) + " components)";
+  }
+  return out.empty() ? "none" : out;
+}
+
+// The array `name` among `arrays` (point data first), with the message find_array gives when there is none.
+Found find_view(const std::string& source, const std::vector<StressArrayView>& arrays, const std::string& name) {
+  for (Association where : {Association::point, Association::cell})
+    for (const StressArrayView& v : arrays)
+      if (v.where == where && v.name == name) return from_view(v);
+  throw Error(source + ": has no numeric point or cell array named '" + name + "'; its point arrays are: " +
+              view_list(arrays, Association::point) + "; its cell arrays are: " + view_list(arrays, Association::cell));
 }
 
 std::string value_text(double v) {
@@ -47,66 +98,104 @@ std::string value_text(double v) {
 }
 
 // Calls visit(get) with get(i, c) = component c of tuple i as double: straight from memory for the usual
-// Float32/Float64 arrays (a million points and six components per load step), through GetComponent otherwise.
+// Float32/Float64 arrays (a million points and six components per load step; six as a constant stride), through
+// GetComponent otherwise.
 template <class Visit>
-void with_values(vtkDataArray* a, Visit&& visit) {
-  const auto comps = static_cast<vtkIdType>(a->GetNumberOfComponents());
-  if (auto* f = vtkAOSDataArrayTemplate<float>::FastDownCast(a)) {
-    const float* p = f->GetPointer(0);
+void with_values(const Found& a, Visit&& visit) {
+  const auto comps = static_cast<vtkIdType>(a.comps);
+  if (const float* p = a.f32) {
+    if (comps == 6) return visit([p](vtkIdType i, int c) { return static_cast<double>(p[i * 6 + c]); });
     return visit([p, comps](vtkIdType i, int c) { return static_cast<double>(p[i * comps + c]); });
   }
-  if (auto* d = vtkAOSDataArrayTemplate<double>::FastDownCast(a)) {
-    const double* p = d->GetPointer(0);
+  if (const double* p = a.f64) {
+    if (comps == 6) return visit([p](vtkIdType i, int c) { return p[i * 6 + c]; });
     return visit([p, comps](vtkIdType i, int c) { return p[i * comps + c]; });
   }
-  visit([a](vtkIdType i, int c) { return a->GetComponent(i, c); });
+  vtkDataArray* other = a.other;
+  visit([other](vtkIdType i, int c) { return other->GetComponent(i, c); });
 }
 
-void check_finite(const Mesh& mesh, const Found& found) {
-  const vtkIdType n = found.array->GetNumberOfTuples();
-  const int comps = found.array->GetNumberOfComponents();
-  with_values(found.array, [&](auto get) {
-    for (vtkIdType i = 0; i < n; ++i) {
-      bool finite = true;
-      for (int c = 0; c < comps; ++c) finite = finite && std::isfinite(get(i, c));
-      if (finite) continue;
-      for (int c = 0; c < comps; ++c) {
-        const double v = get(i, c);
-        if (std::isfinite(v)) continue;
-        throw Error(mesh.source() + ": array '" + found.array->GetName() + "' holds a non-finite value (" +
-                    value_text(v) + ") at " + entity(found.where) + " " + std::to_string(i) +
-                    "; fix the solver results or write them again");
-      }
-    }
-  });
-}
+// IEEE 754 binary32/binary64: a value is NaN or infinite exactly when all its exponent bits are set.
+template <class T>
+struct ExponentBits;
+template <>
+struct ExponentBits<float> {
+  using Word = std::uint32_t;
+  static constexpr Word mask = 0x7f800000u;
+};
+template <>
+struct ExponentBits<double> {
+  using Word = std::uint64_t;
+  static constexpr Word mask = 0x7ff0000000000000u;
+};
 
-std::vector<std::string> component_names(vtkDataArray* array) {
-  std::vector<std::string> names;
-  for (int c = 0; c < array->GetNumberOfComponents(); ++c) {
-    const char* name = array->GetComponentName(c);
-    names.emplace_back(name ? name : "");
+// True when one of p[begin, end) is NaN or infinite; compares exponent bits, which the compiler vectorizes.
+template <class T>
+bool any_non_finite(const T* p, std::size_t begin, std::size_t end) {
+  using Bits = ExponentBits<T>;
+  static_assert(sizeof(typename Bits::Word) == sizeof(T) && std::numeric_limits<T>::is_iec559);
+  typename Bits::Word bad = 0;
+  for (std::size_t j = begin; j < end; ++j) {
+    typename Bits::Word w;
+    std::memcpy(&w, p + j, sizeof w);
+    bad |= static_cast<typename Bits::Word>((w & Bits::mask) == Bits::mask);
   }
-  return names;
+  return bad != 0;
 }
 
-StressLayout six_component_layout(const Mesh& mesh, const StressSpec& spec, vtkDataArray* array) {
+// Index of the first non-finite of the n values at p, n when all are finite. Blocks are first checked without a
+// branch per value.
+template <class T>
+std::size_t first_non_finite(const T* p, std::size_t n) {
+  constexpr std::size_t kBlock = 4096;
+  for (std::size_t start = 0; start < n; start += kBlock) {
+    const std::size_t end = std::min(n, start + kBlock);
+    if (!any_non_finite(p, start, end)) continue;
+    for (std::size_t j = start; j < end; ++j)
+      if (!std::isfinite(p[j])) return j;
+  }
+  return n;
+}
+
+// Index (tuple-major, tuple * comps + component) of the array's first non-finite value; tuples * comps if none.
+std::size_t first_non_finite(const Found& a) {
+  const std::size_t n = static_cast<std::size_t>(a.tuples) * static_cast<std::size_t>(a.comps);
+  if (a.f32) return first_non_finite(a.f32, n);
+  if (a.f64) return first_non_finite(a.f64, n);
+  std::size_t j = 0;
+  for (vtkIdType i = 0; i < a.tuples; ++i)
+    for (int c = 0; c < a.comps; ++c, ++j)
+      if (!std::isfinite(a.other->GetComponent(i, c))) return j;
+  return n;
+}
+
+void check_finite(const std::string& source, const Found& found) {
+  const std::size_t bad = first_non_finite(found);
+  if (bad == static_cast<std::size_t>(found.tuples) * static_cast<std::size_t>(found.comps)) return;
+  const auto comps = static_cast<std::size_t>(found.comps);
+  const auto i = static_cast<vtkIdType>(bad / comps);
+  double v = 0.0;
+  with_values(found, [&](auto get) { v = get(i, static_cast<int>(bad % comps)); });
+  throw Error(source + ": array '" + found.name + "' holds a non-finite value (" + value_text(v) + ") at " +
+              entity(found.where) + " " + std::to_string(i) + "; fix the solver results or write them again");
+}
+
+StressLayout six_component_layout(const std::string& source, const StressSpec& spec, const Found& found) {
   if (!spec.order.empty()) return parse_component_order(spec.order, "order of stress array '" + spec.array + "'");
-  const std::vector<std::string> names = component_names(array);
+  const std::vector<std::string>& names = found.component_names;
   if (std::optional<StressLayout> layout = layout_from_component_names(names)) return *layout;
   std::string shown;
   for (const std::string& n : names) shown += (shown.empty() ? "" : ", ") + (n.empty() ? std::string("(none)") : n);
-  throw Error(mesh.source() + ": cannot tell the component order of 6-component array '" + spec.array +
+  throw Error(source + ": cannot tell the component order of 6-component array '" + spec.array +
               "' (component names: " + shown +
               "); declare its component order in the plan, e.g. order = \"xx,yy,zz,xy,yz,xz\"");
 }
 
 // Values of one 6- or 9-component array, converted by `factor`, in internal Voigt order.
-std::vector<double> tensor_values(const Mesh& mesh, const StressSpec& spec, const Found& found, double factor) {
-  vtkDataArray* a = found.array;
-  const vtkIdType n = a->GetNumberOfTuples();
+std::vector<double> tensor_values(const std::string& source, const StressSpec& spec, const Found& a, double factor) {
+  const vtkIdType n = a.tuples;
   std::vector<double> out(static_cast<std::size_t>(n) * 6);
-  if (a->GetNumberOfComponents() == 9) {
+  if (a.comps == 9) {
     // Row-major 3x3: symmetric part, (S_ij + S_ji) / 2.
     with_values(a, [&](auto get) {
       for (vtkIdType i = 0; i < n; ++i) {
@@ -119,7 +208,7 @@ std::vector<double> tensor_values(const Mesh& mesh, const StressSpec& spec, cons
     });
     return out;
   }
-  const StressLayout layout = six_component_layout(mesh, spec, a);
+  const StressLayout layout = six_component_layout(source, spec, a);
   with_values(a, [&](auto get) {
     for (vtkIdType i = 0; i < n; ++i)
       for (std::size_t k = 0; k < 6; ++k) out[6 * static_cast<std::size_t>(i) + k] = get(i, layout.source[k]) * factor;
@@ -127,47 +216,58 @@ std::vector<double> tensor_values(const Mesh& mesh, const StressSpec& spec, cons
   return out;
 }
 
-StressField from_tensor_array(const Mesh& mesh, const StressSpec& spec, double factor) {
-  const Found found = find_array(mesh, spec.array);
-  const int comps = found.array->GetNumberOfComponents();
+StressField from_tensor_array(const std::string& source, const StressSpec& spec, const Finder& find, double factor) {
+  const Found found = find(spec.array);
+  const int comps = found.comps;
   if (comps != 6 && comps != 9)
-    throw Error(mesh.source() + ": array '" + spec.array + "' has " + std::to_string(comps) +
+    throw Error(source + ": array '" + spec.array + "' has " + std::to_string(comps) +
                 " components; a stress array needs 6 (symmetric tensor) or 9 (full 3x3 tensor), or name six "
                 "scalar arrays, one per component");
-  check_finite(mesh, found);
-  return StressField(found.where, tensor_values(mesh, spec, found, factor));
+  check_finite(source, found);
+  return StressField(found.where, tensor_values(source, spec, found, factor));
 }
 
-StressField from_component_arrays(const Mesh& mesh, const StressSpec& spec, double factor) {
+StressField from_component_arrays(const std::string& source, const StressSpec& spec, const Finder& find,
+                                  double factor) {
   std::array<Found, 6> found;
   for (std::size_t k = 0; k < 6; ++k) {
     if (spec.component_arrays[k].empty())
-      throw Error(mesh.source() + ": the stress names neither one tensor array nor all six component arrays");
-    found[k] = find_array(mesh, spec.component_arrays[k]);
-    if (found[k].array->GetNumberOfComponents() != 1)
-      throw Error(mesh.source() + ": stress component array '" + spec.component_arrays[k] + "' has " +
-                  std::to_string(found[k].array->GetNumberOfComponents()) + " components; each of the six must be a scalar");
+      throw Error(source + ": the stress names neither one tensor array nor all six component arrays");
+    found[k] = find(spec.component_arrays[k]);
+    if (found[k].comps != 1)
+      throw Error(source + ": stress component array '" + spec.component_arrays[k] + "' has " +
+                  std::to_string(found[k].comps) + " components; each of the six must be a scalar");
     if (found[k].where != found[0].where)
-      throw Error(mesh.source() + ": stress component arrays '" + spec.component_arrays[0] + "' (" +
+      throw Error(source + ": stress component arrays '" + spec.component_arrays[0] + "' (" +
                   entity(found[0].where) + " data) and '" + spec.component_arrays[k] + "' (" + entity(found[k].where) +
                   " data) differ; all six must be point data or all cell data");
-    check_finite(mesh, found[k]);
+    check_finite(source, found[k]);
   }
-  const vtkIdType n = found[0].array->GetNumberOfTuples();
+  const vtkIdType n = found[0].tuples;
   std::vector<double> out(static_cast<std::size_t>(n) * 6);
   for (std::size_t k = 0; k < 6; ++k)
-    with_values(found[k].array, [&](auto get) {
+    with_values(found[k], [&](auto get) {
       for (vtkIdType i = 0; i < n; ++i) out[6 * static_cast<std::size_t>(i) + k] = get(i, 0) * factor;
     });
   return StressField(found[0].where, std::move(out));
+}
+
+StressField convert(const std::string& source, const StressSpec& spec, const Finder& find, StressUnit unit) {
+  const double factor = mpa_per(unit);
+  return spec.array.empty() ? from_component_arrays(source, spec, find, factor)
+                            : from_tensor_array(source, spec, find, factor);
 }
 
 }  // namespace
 
 StressField read_stress(const Mesh& mesh, const StressSpec& spec, StressUnit unit) {
   if (!mesh.grid()) throw Error("read_stress: the mesh is empty; read the model first");
-  const double factor = mpa_per(unit);
-  return spec.array.empty() ? from_component_arrays(mesh, spec, factor) : from_tensor_array(mesh, spec, factor);
+  return convert(mesh.source(), spec, [&mesh](const std::string& name) { return find_array(mesh, name); }, unit);
+}
+
+StressField read_stress(const std::string& source, const std::vector<StressArrayView>& arrays, const StressSpec& spec,
+                        StressUnit unit) {
+  return convert(source, spec, [&](const std::string& name) { return find_view(source, arrays, name); }, unit);
 }
 
 }  // namespace toehold

@@ -59,7 +59,12 @@ std::vector<std::string> split_order(std::string_view text) {
   return tokens;
 }
 
-std::string quoted(std::string_view text) { return "\"" + std::string(text) + "\""; }
+std::string quoted(std::string_view text) {  // built step by step: g++ 12 -O3 warns (-Wrestrict) on "a" + s + "b"
+  std::string out = "\"";
+  out += text;
+  out += '"';
+  return out;
+}
 
 }  // namespace
 

@@ -143,7 +143,7 @@ TEST_P(QuadraticCells, NewtonRefinementBeatsVtkOnCurvedCells) {
 INSTANTIATE_TEST_SUITE_P(Locator, QuadraticCells,
                          ::testing::Values(GridCell::tet10, GridCell::hex20, GridCell::hex27, GridCell::wedge15,
                                            GridCell::lagrange_tet10, GridCell::lagrange_hex27),
-                         [](const auto& info) { return test::to_string(info.param); });
+                         [](const auto& param_info) { return test::to_string(param_info.param); });
 
 class LinearCells : public ::testing::TestWithParam<GridCell> {};
 
@@ -163,7 +163,7 @@ TEST_P(LinearCells, ReproduceLinearFieldOnDistortedCells) {
 }
 
 INSTANTIATE_TEST_SUITE_P(Locator, LinearCells, ::testing::Values(GridCell::hex8, GridCell::tet4, GridCell::wedge6),
-                         [](const auto& info) { return test::to_string(info.param); });
+                         [](const auto& param_info) { return test::to_string(param_info.param); });
 
 TEST(Locator, FiveTetSplitLocatesEverywhere) {
   GridSpec spec = box_spec(GridCell::tet10, 0.1);

@@ -51,4 +51,22 @@ private:
 // the first point or cell id).
 StressField read_stress(const Mesh& mesh, const StressSpec& spec, StressUnit unit);
 
+// A numeric array held in memory outside VTK (for example read straight from a file): `tuples` x `components`
+// values, tuple-major, in the file's stress unit, as Float32 or Float64 (exactly one of f32, f64 is set).
+struct StressArrayView {
+  std::string name;
+  Association where = Association::point;
+  int components = 1;
+  std::size_t tuples = 0;
+  std::vector<std::string> component_names;  // one per component, "" where the file names none
+  const float* f32 = nullptr;
+  const double* f64 = nullptr;
+};
+
+// read_stress on arrays already in memory: each name of `spec` is looked up in `arrays` (point data first, then
+// cell data), and converted exactly as read_stress converts a VTK array of the same values, with the same checks
+// and messages; `source` names the file in them.
+StressField read_stress(const std::string& source, const std::vector<StressArrayView>& arrays, const StressSpec& spec,
+                        StressUnit unit);
+
 }  // namespace toehold
