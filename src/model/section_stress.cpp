@@ -30,7 +30,16 @@ std::string text(double v) {
   return os.str();
 }
 
-std::string text(const Vec3& v) { return "(" + text(v.x()) + ", " + text(v.y()) + ", " + text(v.z()) + ")"; }
+std::string text(const Vec3& v) {  // appended step by step: g++ 12 -O3 warns (-Wrestrict) on "(" + s + ...
+  std::string out = "(";
+  out += text(v.x());
+  out += ", ";
+  out += text(v.y());
+  out += ", ";
+  out += text(v.z());
+  out += ")";
+  return out;
+}
 
 std::string label(const SectionSpec& spec) { return "section '" + spec.name + "'"; }
 
