@@ -138,8 +138,8 @@ PlacedRun run_solid(const Plan& plan, const detail::ModelGeometry& geometry, Ass
   PlacedRun run;
   for (const ToePlan& toe : plan.toes) {
     run.toes.push_back(detail::place_toe(geometry, toe, plan.model.region_array, reporter));
-    detail::prepare_nominal(plan, geometry, run.toes.back());
     const WeldSide weld = detail::toe_weld_side(geometry, toe, plan.model.region_array);
+    detail::prepare_nominal(plan, geometry, weld, run.toes.back());
     run.linear.push_back(detail::prepare_through_thickness(geometry, toe, weld, run.toes.back()));
   }
   run.values.resize(run.toes.size());

@@ -46,6 +46,9 @@ struct ModelGeometry {
 
 std::vector<int> read_cell_region(const Mesh& mesh, const std::string& array);
 
+// The toe's read-out scheme for plate thickness t (mm): the plan's user scheme, or the named scheme at t.
+ReadoutScheme toe_scheme(const ToePlan& toe, double thickness_mm);
+
 // The toe's weld side (region values and/or weld point) as place_toe uses it.
 WeldSide toe_weld_side(const ModelGeometry& geometry, const ToePlan& toe, const std::string& region_array);
 

@@ -111,9 +111,7 @@ void place_sample(const ModelGeometry& g, const WeldSide& weld, const ToePlan& t
   state.problems.emplace_back();
 }
 
-void prepare_surface(const ModelGeometry& g, const std::string& region_array, PlacedToe& toe,
-                     NominalToeState& state) {
-  const WeldSide weld = toe_weld_side(g, toe.result.plan, region_array);
+void prepare_surface(const ModelGeometry& g, const WeldSide& weld, PlacedToe& toe, NominalToeState& state) {
   for (const PlacedStation& s : toe.stations) place_sample(g, weld, toe.result.plan, s.result, state);
   state.description = "surface stress across the toe at " + short_number(state.plan.distance_mm) +
                       " mm along each station's read-out path";
@@ -133,7 +131,7 @@ std::string given_description(const ToeNominalPlan& n) {
 
 }  // namespace
 
-void prepare_nominal(const Plan& plan, const ModelGeometry& geometry, PlacedToe& toe) {
+void prepare_nominal(const Plan& plan, const ModelGeometry& geometry, const WeldSide& weld, PlacedToe& toe) {
   const ToePlan& tp = toe.result.plan;
   if (!tp.nominal) return;
   const SnCurve curve = nominal_curve(plan, tp);
@@ -144,7 +142,7 @@ void prepare_nominal(const Plan& plan, const ModelGeometry& geometry, PlacedToe&
   switch (tp.nominal->source) {
     case NominalSource::given: state->description = given_description(*tp.nominal); break;
     case NominalSource::section: prepare_section(geometry, tp, *state); break;
-    case NominalSource::surface_distance: prepare_surface(geometry, plan.model.region_array, toe, *state); break;
+    case NominalSource::surface_distance: prepare_surface(geometry, weld, toe, *state); break;
     case NominalSource::weld_group: state->description = weld_group_description(*tp.nominal->weld_group); break;
   }
   toe.nominal = std::move(state);

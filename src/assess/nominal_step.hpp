@@ -26,7 +26,8 @@ struct NominalToeState {
 };
 
 // After place_toe: locates what the toe's [toe.nominal] source needs in the model. No-op without [toe.nominal].
-void prepare_nominal(const Plan& plan, const ModelGeometry& geometry, PlacedToe& toe);
+// `weld` is the toe's weld side (toe_weld_side), which the surface-distance samples walk away from.
+void prepare_nominal(const Plan& plan, const ModelGeometry& geometry, const WeldSide& weld, PlacedToe& toe);
 
 // Per load step (unit case), after the stations have recorded the step.
 void record_nominal_step(PlacedToe& toe, const StressField& field);

@@ -33,11 +33,6 @@ ShellToeSpec spec_of(const ToePlan& toe, const std::string& region_array) {
   return spec;
 }
 
-ReadoutScheme scheme_for(const ToePlan& toe, double thickness) {
-  return toe.scheme == SchemeKind::user ? make_user_scheme(toe.user_distances, toe.type, toe.user_factor)
-                                        : make_scheme(toe.scheme, toe.type, thickness);
-}
-
 // The shell layer reports a station's problem as "<toe> station <id>: ..."; the assessment adds that itself.
 std::string without_prefix(std::string text, const std::string& prefix) {
   for (std::size_t at = text.find(prefix); at != std::string::npos; at = text.find(prefix, at))
@@ -104,7 +99,7 @@ PlacedShellToe place_shell_toe(const ShellGeometry& g, const ToePlan& toe, const
   PlacedShellToe out;
   ToeResult& r = out.toe.result;
   r.plan = toe;
-  r.scheme = scheme_for(toe, toe.thickness);
+  r.scheme = toe_scheme(toe, toe.thickness);
   const ShellToeSpec spec = spec_of(toe, region_array);
   ShellToe traced = trace_shell_toe(g.surface, spec);
   r.line = traced.line;
@@ -113,7 +108,7 @@ PlacedShellToe place_shell_toe(const ShellGeometry& g, const ToePlan& toe, const
     // every scheme scales all its distances by t or none, so the weights do not depend on t.
     const double t = st.thickness > 0 ? st.thickness : toe.thickness;
     try {
-      place_shell_readout(g.surface, spec, st, scheme_for(toe, t).distances);
+      place_shell_readout(g.surface, spec, st, toe_scheme(toe, t).distances);
     } catch (const Error& e) {
       throw Error(toe_label(toe) + ", station " + std::to_string(st.id) + ": " + e.what());
     }

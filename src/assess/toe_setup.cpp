@@ -162,6 +162,11 @@ std::vector<int> read_cell_region(const Mesh& mesh, const std::string& name) {
   return region;
 }
 
+ReadoutScheme toe_scheme(const ToePlan& toe, double thickness_mm) {
+  return toe.scheme == SchemeKind::user ? make_user_scheme(toe.user_distances, toe.type, toe.user_factor)
+                                        : make_scheme(toe.scheme, toe.type, thickness_mm);
+}
+
 WeldSide toe_weld_side(const ModelGeometry& g, const ToePlan& toe, const std::string& region_array) {
   return weld_side(g, toe, region_array);
 }
@@ -170,8 +175,7 @@ PlacedToe place_toe(const ModelGeometry& g, const ToePlan& toe, const std::strin
   PlacedToe placed;
   ToeResult& r = placed.result;
   r.plan = toe;
-  r.scheme = toe.scheme == SchemeKind::user ? make_user_scheme(toe.user_distances, toe.type, toe.user_factor)
-                                            : make_scheme(toe.scheme, toe.type, toe.thickness);
+  r.scheme = toe_scheme(toe, toe.thickness);
   r.line = toe_line(g, toe);
   const WeldSide weld = weld_side(g, toe, region_array);
   if (weld.has_regions() && g.mesh.grid()->GetCellLinks() == nullptr) g.mesh.grid()->BuildLinks();

@@ -1,6 +1,7 @@
 // results.json of the hand-made sample assessment: validated against the JSON Schema in docs/results-schema.md by
 // the project's standard-library checker, and spot values (infinity, no result, escaping) as documented there.
 #include "output/sample_results.hpp"
+#include "output/schema_check.hpp"
 #include "support/support.hpp"
 #include "toehold/output/json_results.hpp"
 #include "toehold/output/provenance.hpp"
@@ -11,24 +12,6 @@
 
 namespace toehold::test {
 namespace {
-
-// Runs the schema checker on `json`; returns its exit code and puts its output in `said`.
-int check_schema(const std::string& json, std::string& said) {
-  TempDir dir;
-  {
-    std::ofstream out(dir.file("results.json"), std::ios::binary);
-    out << json;
-  }
-  const std::string command = std::string(TOEHOLD_PYTHON) + " " + TOEHOLD_SOURCE_DIR +
-                              "/tests/e2e/report_schema_check.py " + dir.file("results.json") + " " +
-                              TOEHOLD_SOURCE_DIR + "/docs/results-schema.md 2>&1";
-  FILE* pipe = popen(command.c_str(), "r");
-  if (!pipe) return -1;
-  char buffer[512];
-  while (std::fgets(buffer, sizeof buffer, pipe)) said += buffer;
-  const int status = pclose(pipe);
-  return WIFEXITED(status) ? WEXITSTATUS(status) : -1;
-}
 
 class SampleJson : public ::testing::Test {
 protected:

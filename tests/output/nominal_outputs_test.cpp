@@ -2,6 +2,7 @@
 // results.json keys (validated against docs/results-schema.md) and the report section. The nominal values are set
 // by hand on the sample assessment of sample_results.hpp; ratios derived [D].
 #include "output/sample_results.hpp"
+#include "output/schema_check.hpp"
 #include "support/support.hpp"
 #include "toehold/nominal/material.hpp"
 #include "toehold/output/json_results.hpp"
@@ -51,20 +52,6 @@ Assessment nominal_sample(vtkUnstructuredGrid* grid) {
   }
   toe.nominal = n;
   return a;
-}
-
-int check_schema(const std::string& json, std::string& said) {
-  TempDir dir;
-  std::ofstream(dir.file("results.json"), std::ios::binary) << json;
-  const std::string command = std::string(TOEHOLD_PYTHON) + " " + TOEHOLD_SOURCE_DIR +
-                              "/tests/e2e/report_schema_check.py " + dir.file("results.json") + " " +
-                              TOEHOLD_SOURCE_DIR + "/docs/results-schema.md 2>&1";
-  FILE* pipe = popen(command.c_str(), "r");
-  if (!pipe) return -1;
-  char buffer[512];
-  while (std::fgets(buffer, sizeof buffer, pipe)) said += buffer;
-  const int status = pclose(pipe);
-  return WIFEXITED(status) ? WEXITSTATUS(status) : -1;
 }
 
 TEST(NominalOutputs, JsonCarriesTheNominalMethodAndValidates) {

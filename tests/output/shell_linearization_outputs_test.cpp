@@ -3,6 +3,7 @@
 // sentence, and the console line. Values are set by hand on the sample assessment of sample_results.hpp; ratios,
 // offsets and unit conversions are derived [D].
 #include "output/sample_results.hpp"
+#include "output/schema_check.hpp"
 #include "support/support.hpp"
 #include "toehold/output/json_results.hpp"
 #include "toehold/output/provenance.hpp"
@@ -136,20 +137,6 @@ vtkDataArray* array(vtkPolyData* data, const std::string& name) {
   vtkDataArray* a = data->GetPointData()->GetArray(name.c_str());
   EXPECT_NE(a, nullptr) << "no point array '" << name << "'";
   return a;
-}
-
-int check_schema(const std::string& json, std::string& said) {
-  TempDir dir;
-  std::ofstream(dir.file("results.json"), std::ios::binary) << json;
-  const std::string command = std::string(TOEHOLD_PYTHON) + " " + TOEHOLD_SOURCE_DIR +
-                              "/tests/e2e/report_schema_check.py " + dir.file("results.json") + " " +
-                              TOEHOLD_SOURCE_DIR + "/docs/results-schema.md 2>&1";
-  FILE* pipe = popen(command.c_str(), "r");
-  if (!pipe) return -1;
-  char buffer[512];
-  while (std::fgets(buffer, sizeof buffer, pipe)) said += buffer;
-  const int status = pclose(pipe);
-  return WIFEXITED(status) ? WEXITSTATUS(status) : -1;
 }
 
 TEST(ShellLinearizationOutputs, PlainCsvHasNeitherShellNorLinearizationColumns) {
