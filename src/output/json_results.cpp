@@ -247,11 +247,7 @@ void write_station_nominal(JsonWriter& w, const Context& c, const StationResult&
     w.value(*n.concentration_factor);
   else
     w.null();
-  w.key("governing");
-  if (n.governing.empty())
-    w.null();
-  else
-    w.value(n.governing);
+  text_or_null(w, "governing", n.governing);
   w.field("verdict", n.verdict).end_object();
 }
 
@@ -290,11 +286,7 @@ void write_toe_nominal(JsonWriter& w, const Context& c, const ToeResult& t) {
     w.value(t.stations[static_cast<std::size_t>(n.worst)].station.id);
   else
     w.null();
-  w.key("governing");
-  if (n.governing.empty())
-    w.null();
-  else
-    w.value(n.governing);
+  text_or_null(w, "governing", n.governing);
   w.key("infinite_life");
   if (n.infinite_life) {
     write_infinite_life(w, *n.infinite_life);
