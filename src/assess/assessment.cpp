@@ -134,7 +134,22 @@ struct PlacedRun {
   StepValues values;
 };
 
-PlacedRun run_solid(const Plan& plan, const detail::ModelGeometry& geometry, Assessment& out, Reporter& reporter) {
+// Holds the messages of a try that may be redone, and passes them on only when it succeeds.
+class HeldReporter final : public Reporter {
+public:
+  void info(const std::string& message) override { held_.push_back({false, message}); }
+  void warn(const std::string& message) override { held_.push_back({true, message}); }
+  void progress(const std::string&, std::size_t, std::size_t) override {}
+  void release(Reporter& to) const {
+    for (const auto& [warning, message] : held_) warning ? to.warn(message) : to.info(message);
+  }
+
+private:
+  std::vector<std::pair<bool, std::string>> held_;
+};
+
+// Toe lines, stations, read-out points, nominal samples and linearization lines of every toe.
+PlacedRun place_solid(const Plan& plan, const detail::ModelGeometry& geometry, Reporter& reporter) {
   PlacedRun run;
   for (const ToePlan& toe : plan.toes) {
     run.toes.push_back(detail::place_toe(geometry, toe, plan.model.region_array, reporter));
@@ -142,6 +157,34 @@ PlacedRun run_solid(const Plan& plan, const detail::ModelGeometry& geometry, Ass
     detail::prepare_nominal(plan, geometry, weld, run.toes.back());
     run.linear.push_back(detail::prepare_through_thickness(geometry, toe, weld, run.toes.back()));
   }
+  return run;
+}
+
+// The geometry near the toes when that is enough, else the whole model's. A placement that fails near the
+// toes is redone on the whole model, so every error names what the whole model shows.
+PlacedRun place_on_model(const Plan& plan, std::unique_ptr<detail::ModelGeometry>& geometry, Mesh mesh,
+                         Reporter& reporter) {
+  std::optional<NearCells> near = detail::toe_neighbourhood(plan, mesh);
+  if (near) {
+    geometry = std::make_unique<detail::ModelGeometry>(mesh, std::move(near));
+    geometry->cell_region = detail::read_cell_region(geometry->mesh, plan.model.region_array);
+    HeldReporter held;
+    try {
+      PlacedRun run = place_solid(plan, *geometry, held);
+      held.release(reporter);
+      return run;
+    } catch (const Error&) {
+      geometry.reset();
+    }
+  }
+  geometry = std::make_unique<detail::ModelGeometry>(std::move(mesh), std::nullopt);
+  geometry->cell_region = detail::read_cell_region(geometry->mesh, plan.model.region_array);
+  return place_solid(plan, *geometry, reporter);
+}
+
+// Every load step's values at the placed stations, nominal samples and linearization lines.
+void record_solid(const Plan& plan, const detail::ModelGeometry& geometry, PlacedRun& run, Assessment& out,
+                  Reporter& reporter) {
   run.values.resize(run.toes.size());
   for (std::size_t t = 0; t < run.toes.size(); ++t) run.values[t].resize(run.toes[t].stations.size());
   detail::StepReader steps(plan, geometry.mesh, reporter);
@@ -162,7 +205,6 @@ PlacedRun run_solid(const Plan& plan, const detail::ModelGeometry& geometry, Ass
   }
   reporter.progress("load steps", plan.steps.size(), plan.steps.size());
   out.input_files = steps.files();
-  return run;
 }
 
 // The shell path: toes on plate intersection lines, every step's layer stresses read once, each station reading
@@ -245,11 +287,10 @@ Assessment run_assessment(const Plan& plan, Reporter& reporter) {
     run = run_shell(plan, *shells, out, reporter);
   } else {
     const auto [geometry_file, geometry_step] = detail::geometry_source(plan);
-    geometry = std::make_unique<detail::ModelGeometry>(
-        read_mesh(geometry_file, geometry_step, plan.model.length_unit, reporter));
-    geometry->cell_region = detail::read_cell_region(geometry->mesh, plan.model.region_array);
+    run = place_on_model(plan, geometry, read_mesh(geometry_file, geometry_step, plan.model.length_unit, reporter),
+                         reporter);
     out.model = geometry->mesh;
-    run = run_solid(plan, *geometry, out, reporter);
+    record_solid(plan, *geometry, run, out, reporter);
   }
   out.model_points = out.model.grid()->GetNumberOfPoints();
   out.model_cells = out.model.grid()->GetNumberOfCells();

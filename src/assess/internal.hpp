@@ -17,6 +17,7 @@
 
 #include <map>
 #include <memory>
+#include <optional>
 #include <utility>
 
 namespace toehold::detail {
@@ -35,14 +36,24 @@ struct PlacedToe {
   std::shared_ptr<NominalToeState> nominal;  // set by prepare_nominal when the toe has [toe.nominal]
 };
 
-// The geometry every toe is built on.
+// The geometry every toe is built on: the surface and locator of the whole mesh, or of the cells near the toes.
 struct ModelGeometry {
   Mesh mesh;
+  std::optional<NearCells> near;  // the cells the surface and locator cover; none = the whole mesh
   Surface surface;
   Locator locator;
   std::vector<int> cell_region;  // empty when the plan names no region array
-  explicit ModelGeometry(Mesh m);
+  // Over the whole mesh, or over `near` (its cells of `m`).
+  ModelGeometry(Mesh m, std::optional<NearCells> near_toes);
 };
+
+// The cells near the plan's toes (toe_region.cpp), or none when the whole model is needed or barely larger:
+// a toe that cannot be found (its error then comes from the whole model) or near cells over 80 % of the model.
+std::optional<NearCells> toe_neighbourhood(const Plan& plan, const Mesh& mesh);
+
+// The nodes of `mesh` with the toe's marker value in its marker array. Throws Error naming the toe and the array
+// when the array is missing, has several components or marks no node.
+std::vector<long long> marked_nodes(const Mesh& mesh, const ToePlan& toe);
 
 std::vector<int> read_cell_region(const Mesh& mesh, const std::string& array);
 

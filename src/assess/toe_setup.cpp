@@ -7,6 +7,8 @@
 
 #include <vtkCellData.h>
 #include <vtkDataArray.h>
+#include <vtkIdList.h>
+#include <vtkNew.h>
 #include <vtkPointData.h>
 
 #include <cmath>
@@ -28,25 +30,6 @@ vtkDataArray* integer_array(vtkFieldData* data, const std::string& name, const s
     throw Error(who + ": " + kind + " array '" + name + "' in " + mesh.source() + " has " +
                 std::to_string(array->GetNumberOfComponents()) + " components; a marker array has one");
   return array;
-}
-
-std::vector<long long> marked_nodes(const Mesh& mesh, const ToePlan& toe) {
-  const std::string who = toe_label(toe);
-  vtkDataArray* array = integer_array(mesh.grid()->GetPointData(), toe.marker_array, "point", mesh, who);
-  std::vector<long long> nodes;
-  std::set<long long> values;
-  for (vtkIdType i = 0; i < array->GetNumberOfTuples(); ++i) {
-    const double v = array->GetComponent(i, 0);
-    if (values.size() < 20) values.insert(std::llround(v));
-    if (v == toe.marker_value) nodes.push_back(i);
-  }
-  if (nodes.empty()) {
-    std::string found;
-    for (long long v : values) found += (found.empty() ? "" : ", ") + std::to_string(v);
-    throw Error(who + ": no node has value " + std::to_string(toe.marker_value) + " in point array '" +
-                toe.marker_array + "' of " + mesh.source() + " (values found: " + found + ")");
-  }
-  return nodes;
 }
 
 ToeLine toe_line(const ModelGeometry& g, const ToePlan& toe) {
@@ -77,39 +60,46 @@ std::string at_mm(const char* what, double d) {
   return os.str();
 }
 
-// True when a cell that shares a point with `cell` is a weld cell (the grid's point links must be built).
-bool touches_weld(vtkUnstructuredGrid* grid, const WeldSide& weld, long long cell) {
-  vtkIdType n = 0;
-  const vtkIdType* pts = nullptr;
-  grid->GetCellPoints(cell, n, pts);
-  for (vtkIdType i = 0; i < n; ++i) {
-    vtkIdType count = 0;
-    vtkIdType* cells = nullptr;
-    grid->GetPointCells(pts[i], count, cells);
-    for (vtkIdType k = 0; k < count; ++k)
-      if (weld.is_weld_cell(cells[k])) return true;
+// Which mesh points belong to a weld cell (empty when the weld side has no region values).
+std::vector<char> weld_points(vtkUnstructuredGrid* grid, const WeldSide& weld) {
+  if (!weld.has_regions()) return {};
+  std::vector<char> on_weld(static_cast<std::size_t>(grid->GetNumberOfPoints()), 0);
+  vtkNew<vtkIdList> ids;
+  for (vtkIdType c = 0; c < grid->GetNumberOfCells(); ++c) {
+    if (!weld.is_weld_cell(c)) continue;
+    grid->GetCellPoints(c, ids);
+    for (vtkIdType i = 0; i < ids->GetNumberOfIds(); ++i) on_weld[static_cast<std::size_t>(ids->GetId(i))] = 1;
   }
+  return on_weld;
+}
+
+// True when a cell that shares a point with `cell` is a weld cell: one of its points is a weld cell's.
+bool touches_weld(vtkUnstructuredGrid* grid, const std::vector<char>& on_weld, long long cell) {
+  vtkNew<vtkIdList> ids;
+  grid->GetCellPoints(cell, ids);
+  for (vtkIdType i = 0; i < ids->GetNumberOfIds(); ++i)
+    if (on_weld[static_cast<std::size_t>(ids->GetId(i))]) return true;
   return false;
 }
 
 // The mesh-fitness checks that fail (toe/fitness.hpp) and read-out cells that touch the weld, as station notes.
-void add_fitness_notes(const ModelGeometry& g, const ReadoutScheme& scheme, const WeldSide& weld, double thickness,
-                       PlacedStation& placed) {
+void add_fitness_notes(const ModelGeometry& g, const ReadoutScheme& scheme, const std::vector<char>& on_weld,
+                       double thickness, PlacedStation& placed) {
   StationResult& r = placed.result;
   std::vector<long long> cells;
   for (const Host& h : placed.hosts) cells.push_back(h.cell);
   const long long toe_cell = g.surface.facets()[static_cast<std::size_t>(r.station.facet)].owner;
   for (const FitnessCheck& c : check_station_fitness(g.mesh, scheme, thickness, r.station.frame.readout, toe_cell, cells))
     if (!c.passed) r.notes.push_back("mesh check '" + c.name + "' fails: " + c.detail);
-  if (!weld.has_regions()) return;
+  if (on_weld.empty()) return;
   for (std::size_t k = 0; k < cells.size(); ++k)
-    if (touches_weld(g.mesh.grid(), weld, cells[k]))
+    if (touches_weld(g.mesh.grid(), on_weld, cells[k]))
       r.notes.push_back(at_mm("lies in a cell that touches the weld: nodal-averaged stresses there mix weld and plate",
                               r.points[k].distance));
 }
 
 PlacedStation place_station(const ModelGeometry& g, const Station& station, const ReadoutScheme& scheme,
-                            const WeldSide& weld, double thickness) {
+                            const WeldSide& weld, const std::vector<char>& on_weld, double thickness) {
   PlacedStation placed;
   StationResult& r = placed.result;
   r.station = station;
@@ -145,13 +135,35 @@ PlacedStation place_station(const ModelGeometry& g, const Station& station, cons
     placed.hosts.push_back(*host);
   }
   if (r.problem.empty() && !walk.stop_reason.empty()) r.problem = walk.stop_reason;
-  if (r.problem.empty()) add_fitness_notes(g, scheme, weld, thickness, placed);
+  if (r.problem.empty()) add_fitness_notes(g, scheme, on_weld, thickness, placed);
   return placed;
 }
 
 }  // namespace
 
-ModelGeometry::ModelGeometry(Mesh m) : mesh(std::move(m)), surface(mesh), locator(mesh) {}
+ModelGeometry::ModelGeometry(Mesh m, std::optional<NearCells> near_toes)
+    : mesh(std::move(m)), near(std::move(near_toes)), surface(mesh, near ? &*near : nullptr),
+      locator(mesh, near ? &*near : nullptr) {}
+
+std::vector<long long> marked_nodes(const Mesh& mesh, const ToePlan& toe) {
+  const std::string who = toe_label(toe);
+  vtkDataArray* array = integer_array(mesh.grid()->GetPointData(), toe.marker_array, "point", mesh, who);
+  std::vector<long long> nodes;
+  std::set<long long> values;
+  for (vtkIdType i = 0; i < array->GetNumberOfTuples(); ++i) {
+    const double v = array->GetComponent(i, 0);
+    if (values.size() < 20) values.insert(std::llround(v));
+    if (v == toe.marker_value) nodes.push_back(i);
+  }
+  if (nodes.empty()) {
+    std::string found;
+    for (long long v : values) found += (found.empty() ? "" : ", ") + std::to_string(v);
+    throw Error(who + ": no node has value " + std::to_string(toe.marker_value) + " in point array '" +
+                toe.marker_array + "' of " + mesh.source() + " (values found: " + found + ")");
+  }
+  return nodes;
+}
+
 
 std::vector<int> read_cell_region(const Mesh& mesh, const std::string& name) {
   if (name.empty()) return {};
@@ -178,9 +190,10 @@ PlacedToe place_toe(const ModelGeometry& g, const ToePlan& toe, const std::strin
   r.scheme = toe_scheme(toe, toe.thickness);
   r.line = toe_line(g, toe);
   const WeldSide weld = weld_side(g, toe, region_array);
-  if (weld.has_regions() && g.mesh.grid()->GetCellLinks() == nullptr) g.mesh.grid()->BuildLinks();
+  const std::vector<char> on_weld = weld_points(g.mesh.grid(), weld);
   const std::vector<Station> stations = make_stations(g.surface, r.line, weld, toe.spacing, toe_label(toe));
-  for (const Station& s : stations) placed.stations.push_back(place_station(g, s, r.scheme, weld, toe.thickness));
+  for (const Station& s : stations)
+    placed.stations.push_back(place_station(g, s, r.scheme, weld, on_weld, toe.thickness));
   std::ostringstream os;
   os.precision(4);
   os << toe_label(toe) << ": " << stations.size() << " stations along " << r.line.length() << " mm"

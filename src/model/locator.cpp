@@ -316,19 +316,38 @@ bool bounds_near(vtkUnstructuredGrid* grid, vtkIdType id, const Vec3& x, double 
   return true;
 }
 
+// The near cells as a grid of their own on the mesh's points (cell k of it is mesh cell near.cells()[k]).
+vtkSmartPointer<vtkUnstructuredGrid> near_grid(vtkUnstructuredGrid* grid, const NearCells& near) {
+  auto sub = vtkSmartPointer<vtkUnstructuredGrid>::New();
+  sub->SetPoints(grid->GetPoints());
+  sub->Allocate(static_cast<vtkIdType>(near.cells().size()));
+  vtkNew<vtkIdList> ids;
+  for (long long c : near.cells()) {
+    grid->GetCellPoints(static_cast<vtkIdType>(c), ids);
+    sub->InsertNextCell(grid->GetCellType(static_cast<vtkIdType>(c)), ids);
+  }
+  return sub;
+}
+
 }  // namespace
 
-Locator::Locator(const Mesh& mesh) : mesh_(&mesh) {
+Locator::Locator(const Mesh& mesh, const NearCells* near) {
   vtkUnstructuredGrid* grid = mesh.grid();
   if (grid == nullptr || grid->GetNumberOfCells() == 0)
     throw Error("cannot locate points in model '" + mesh.source() +
                 "': it has no volume cells; give a model with 3D cells");
-  locator_ = vtkSmartPointer<vtkStaticCellLocator>::New();
-  locator_->SetDataSet(grid);
-  locator_->BuildLocator();
+  cells_ = grid;
+  if (near != nullptr) {
+    cells_ = near_grid(grid, *near);
+    mesh_cell_ = near->cells();
+  }
   max_cell_size_ = grid->GetMaxCellSize();
+  locator_ = vtkSmartPointer<vtkStaticCellLocator>::New();
+  if (cells_->GetNumberOfCells() == 0) return;  // nothing near: every point is off the model
+  locator_->SetDataSet(cells_);
+  locator_->BuildLocator();
   vtkNew<vtkGenericCell> first;
-  grid->GetCell(0, first);  // any lazy set-up of the grid happens here, before threads query it
+  cells_->GetCell(0, first);  // any lazy set-up of the grid happens here, before threads query it
 }
 
 std::optional<Host> Locator::locate(const Vec3& x, double tolerance) const {
@@ -336,25 +355,32 @@ std::optional<Host> Locator::locate(const Vec3& x, double tolerance) const {
 }
 
 std::optional<Host> Locator::locate(const Vec3& x, double tolerance, const CellFilter& refuse) const {
-  vtkUnstructuredGrid* grid = mesh_->grid();
+  vtkUnstructuredGrid* grid = cells_.Get();
+  const auto mesh_cell = [this](vtkIdType id) {
+    return mesh_cell_.empty() ? static_cast<long long>(id) : mesh_cell_[static_cast<std::size_t>(id)];
+  };
+  const auto refused = [&](vtkIdType id) { return refuse && refuse(mesh_cell(id)); };
   Scratch& s = scratch(max_cell_size_);
   double xp[3] = {x.x(), x.y(), x.z()};
   double pc[3];
-  const vtkIdType found = locator_->FindCell(xp, 0.0, s.cell, pc, s.weights.data());
-  if (found >= 0 && !(refuse && refuse(found))) {
+  const vtkIdType found = cells_->GetNumberOfCells() > 0 ? locator_->FindCell(xp, 0.0, s.cell, pc, s.weights.data())
+                                                         : -1;
+  if (found >= 0 && !refused(found)) {
     load_cell(grid, found, s);
-    if (newton(s, x, pc) && inside(domain_of(s.cell->GetCellType()), pc)) return make_host(s, found, pc, 0.0);
+    if (newton(s, x, pc) && inside(domain_of(s.cell->GetCellType()), pc))
+      return make_host(s, mesh_cell(found), pc, 0.0);
   }
   // No acceptable cell holds x to round-off: take the closest acceptable cell among those whose bounds come
   // within the tolerance (a refused cell that holds x leaves its neighbours, which touch x, at distance 0).
   const double reach = std::max(tolerance, 0.0);
   double box[6] = {x.x() - reach, x.x() + reach, x.y() - reach, x.y() + reach, x.z() - reach, x.z() + reach};
+  if (cells_->GetNumberOfCells() == 0) return std::nullopt;
   locator_->FindCellsWithinBounds(box, s.candidates);
   vtkIdType best = -1;
   double best_distance = HUGE_VAL, best_pc[3] = {0, 0, 0};
   for (vtkIdType k = 0; k < s.candidates->GetNumberOfIds() && best_distance > 0.0; ++k) {
     const vtkIdType id = s.candidates->GetId(k);
-    if ((refuse && refuse(id)) || !bounds_near(grid, id, x, reach)) continue;
+    if (refused(id) || !bounds_near(grid, id, x, reach)) continue;
     const double d = distance_to_cell(grid, id, x, s, pc);
     if (d < best_distance) {
       best = id;
@@ -364,7 +390,7 @@ std::optional<Host> Locator::locate(const Vec3& x, double tolerance, const CellF
   }
   if (best < 0 || best_distance > reach) return std::nullopt;
   load_cell(grid, best, s);
-  return make_host(s, best, best_pc, best_distance);
+  return make_host(s, mesh_cell(best), best_pc, best_distance);
 }
 
 Tensor interpolate(const StressField& field, const Host& host) {

@@ -5,6 +5,7 @@
 
 #include <vtkCellArray.h>
 #include <vtkCellType.h>
+#include <vtkDataArray.h>
 #include <vtkGenericCell.h>
 #include <vtkIdList.h>
 #include <vtkNew.h>
@@ -136,26 +137,35 @@ private:
 
 // Discontinuous (element-nodal) results duplicate a node once per cell. For the surface, coincident points are one
 // point: the lowest id among them (-0.0 and 0.0 are the same place). The cells keep their own copies, so stresses
-// still come from the host cell. Found with an open-addressing hash of the exact coordinates, in id order.
+// still come from the host cell. Found with an open-addressing hash of the exact coordinates, in id order; each
+// slot keeps 24 bits of its point's hash, so a probe reads the coordinates only when the tags agree.
 class CanonicalPoints {
 public:
   explicit CanonicalPoints(vtkUnstructuredGrid* grid) {
     const auto n = static_cast<std::size_t>(grid->GetNumberOfPoints());
-    std::vector<std::array<double, 3>> x(n);
-    for (std::size_t i = 0; i < n; ++i) {
-      grid->GetPoint(static_cast<vtkIdType>(i), x[i].data());
-      for (double& v : x[i]) v += 0.0;  // -0.0 -> 0.0
+    vtkPoints* points = grid->GetPoints();
+    std::vector<double> copy;  // only when the points are not doubles (read_mesh makes doubles)
+    const double* x = nullptr;
+    if (points->GetDataType() == VTK_DOUBLE) {
+      x = static_cast<const double*>(points->GetData()->GetVoidPointer(0));
+    } else {
+      copy.resize(3 * n);
+      for (std::size_t i = 0; i < n; ++i) points->GetPoint(static_cast<vtkIdType>(i), copy.data() + 3 * i);
+      x = copy.data();
     }
     std::size_t size = 16;
     while (size < 2 * n) size *= 2;
-    std::vector<long long> table(size, -1);
+    std::vector<std::uint64_t> table(size, 0);  // 0 = empty, else tag << kIdBits | (id + 1)
     std::vector<long long> canon(n);
     bool any = false;
     for (std::size_t i = 0; i < n; ++i) {
-      std::size_t slot = hash(x[i]) & (size - 1);
-      while (table[slot] >= 0 && x[static_cast<std::size_t>(table[slot])] != x[i]) slot = (slot + 1) & (size - 1);
-      if (table[slot] < 0) table[slot] = static_cast<long long>(i);
-      canon[i] = table[slot];
+      const std::uint64_t h = hash(x + 3 * i);
+      const std::uint64_t tag = h >> kIdBits;
+      std::size_t slot = static_cast<std::size_t>(h) & (size - 1);
+      while (table[slot] != 0 && ((table[slot] >> kIdBits) != tag || !same(x + 3 * (id_of(table[slot])), x + 3 * i)))
+        slot = (slot + 1) & (size - 1);
+      if (table[slot] == 0) table[slot] = tag << kIdBits | (i + 1);
+      canon[i] = static_cast<long long>(id_of(table[slot]));
       any = any || canon[i] != static_cast<long long>(i);
     }
     if (any) canon_ = std::move(canon);
@@ -164,14 +174,21 @@ public:
   const std::vector<long long>& table() const { return canon_; }
 
 private:
-  static std::size_t hash(const std::array<double, 3>& x) {
+  static constexpr int kIdBits = 40;  // up to 2^40 - 1 points; the upper 24 bits of a slot tag its hash
+  static std::size_t id_of(std::uint64_t slot) {
+    return static_cast<std::size_t>((slot & ((std::uint64_t{1} << kIdBits) - 1)) - 1);
+  }
+  static bool same(const double* a, const double* b) {
+    return a[0] == b[0] && a[1] == b[1] && a[2] == b[2];  // -0.0 == 0.0
+  }
+  static std::uint64_t hash(const double* x) {
     std::uint64_t h = 0x9e3779b97f4a7c15ull;
-    for (double v : x) {
-      h ^= std::bit_cast<std::uint64_t>(v) + 0x9e3779b97f4a7c15ull + (h << 6) + (h >> 2);
+    for (int a = 0; a < 3; ++a) {
+      h ^= std::bit_cast<std::uint64_t>(x[a] + 0.0) + 0x9e3779b97f4a7c15ull + (h << 6) + (h >> 2);  // -0.0 -> 0.0
       h *= 0xbf58476d1ce4e5b9ull;
       h ^= h >> 31;
     }
-    return static_cast<std::size_t>(h);
+    return h;
   }
   std::vector<long long> canon_;
 };
@@ -248,16 +265,20 @@ struct FiledFace {
 // compared on its own without going back to the cells. Id is int when the point and face numbers fit (half
 // the memory), else long long. Returns face codes in cell order.
 template <class Id>
-std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates& templates, const CellNodes& nodes) {
-  const vtkIdType cells = grid->GetNumberOfCells();
+std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates& templates, const CellNodes& nodes,
+                                      const NearCells* near) {
   std::vector<long long> start(static_cast<std::size_t>(grid->GetNumberOfPoints()) + 1, 0);
   auto for_each_face = [&](auto&& visit) {
     vtkIdType npts = 0;
-    for (vtkIdType c = 0; c < cells; ++c) {
+    const auto faces_of = [&](vtkIdType c) {
       const vtkIdType* pts = nodes.of(c, npts);
       const auto& faces = templates.of(c).faces;
       for (std::size_t f = 0; f < faces.size(); ++f) visit(c, f, face_key(faces[f], pts));
-    }
+    };
+    if (near == nullptr)
+      for (vtkIdType c = 0; c < grid->GetNumberOfCells(); ++c) faces_of(c);
+    else
+      for (long long c : near->cells()) faces_of(static_cast<vtkIdType>(c));
   };
   for_each_face([&](vtkIdType, std::size_t, const FaceKey& key) { ++start[static_cast<std::size_t>(key[0]) + 1]; });
   std::partial_sum(start.begin(), start.end(), start.begin());
@@ -284,11 +305,25 @@ std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates
   return out;
 }
 
-std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates& templates, const CellNodes& nodes) {
+std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates& templates, const CellNodes& nodes,
+                                      const NearCells* near) {
   constexpr long long fits = std::numeric_limits<int>::max();
   if (grid->GetNumberOfPoints() < fits && grid->GetNumberOfCells() < fits / kFaceBits)
-    return boundary_faces<int>(grid, templates, nodes);
-  return boundary_faces<long long>(grid, templates, nodes);
+    return boundary_faces<int>(grid, templates, nodes, near);
+  return boundary_faces<long long>(grid, templates, nodes, near);
+}
+
+// Bounding box of a facet's corners, mm.
+Box facet_box(vtkPoints* points, const Facet& f) {
+  Box b{HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL};
+  for (int k = 0; k < f.corner_count(); ++k) {
+    const Vec3 x = point_of(points, f.points[k]);
+    for (int a = 0; a < 3; ++a) {
+      b[2 * a] = std::min(b[2 * a], x[a]);
+      b[2 * a + 1] = std::max(b[2 * a + 1], x[a]);
+    }
+  }
+  return b;
 }
 
 Vec3 facet_normal(vtkPoints* points, const std::array<long long, 4>& p) {
@@ -358,7 +393,7 @@ struct Surface::FacetIndex {
   }
 };
 
-Surface::Surface(const Mesh& mesh) : mesh_(&mesh), index_(std::make_shared<FacetIndex>()) {
+Surface::Surface(const Mesh& mesh, const NearCells* near) : mesh_(&mesh), index_(std::make_shared<FacetIndex>()) {
   vtkUnstructuredGrid* grid = mesh.grid();
   if (grid == nullptr || grid->GetNumberOfCells() == 0)
     throw Error("cannot find the surface of model '" + mesh.source() +
@@ -369,25 +404,32 @@ Surface::Surface(const Mesh& mesh) : mesh_(&mesh), index_(std::make_shared<Facet
   const CellNodes nodes(grid, canonical);
   vtkIdType npts = 0;
   const vtkIdType* pts = nullptr;
-  for (long long code : boundary_faces(grid, templates, nodes)) {
+  for (long long code : boundary_faces(grid, templates, nodes, near)) {
     const vtkIdType cell = FaceCode::cell(code);
     pts = nodes.of(cell, npts);
     add_face_facets(grid->GetPoints(), cell, npts, pts, templates.of(cell).faces[FaceCode::face(code)], facets_);
   }
-  std::vector<int> count(static_cast<std::size_t>(grid->GetNumberOfPoints()), 0);
+  // Of the near cells' boundary, only facets near a seed are sure to be on the whole mesh's surface: a face the
+  // near cells share with a cell left out lies in that cell's box, which is out of every seed's reach.
+  if (near != nullptr)
+    std::erase_if(facets_, [&](const Facet& f) { return !near->near(facet_box(grid->GetPoints(), f)); });
+  point_start_.assign(static_cast<std::size_t>(grid->GetNumberOfPoints()) + 1, 0);
   for (const Facet& f : facets_)
-    for (int k = 0; k < f.corner_count(); ++k) ++count[static_cast<std::size_t>(f.points[k])];
-  point_facets_.resize(count.size());
-  for (std::size_t p = 0; p < count.size(); ++p) point_facets_[p].reserve(static_cast<std::size_t>(count[p]));
+    for (int k = 0; k < f.corner_count(); ++k) ++point_start_[static_cast<std::size_t>(f.points[k]) + 1];
+  std::partial_sum(point_start_.begin(), point_start_.end(), point_start_.begin());
+  point_facet_.resize(static_cast<std::size_t>(point_start_.back()));
+  std::vector<long long> fill(point_start_.begin(), point_start_.end() - 1);
   for (std::size_t i = 0; i < facets_.size(); ++i)
     for (int k = 0; k < facets_[i].corner_count(); ++k)
-      point_facets_[static_cast<std::size_t>(facets_[i].points[k])].push_back(static_cast<int>(i));
+      point_facet_[static_cast<std::size_t>(fill[static_cast<std::size_t>(facets_[i].points[k])]++)] =
+          static_cast<int>(i);
 }
 
-const std::vector<int>& Surface::facets_of_point(long long p) const {
-  static const std::vector<int> none;
-  if (p < 0 || static_cast<std::size_t>(p) >= point_facets_.size()) return none;
-  return point_facets_[static_cast<std::size_t>(p)];
+std::span<const int> Surface::facets_of_point(long long p) const {
+  if (p < 0 || static_cast<std::size_t>(p) + 1 >= point_start_.size()) return {};
+  const auto begin = static_cast<std::size_t>(point_start_[static_cast<std::size_t>(p)]);
+  const auto end = static_cast<std::size_t>(point_start_[static_cast<std::size_t>(p) + 1]);
+  return {point_facet_.data() + begin, end - begin};
 }
 
 std::vector<int> Surface::facets_on_edge(long long a, long long b) const {

@@ -5,6 +5,7 @@
 #include <algorithm>
 #include <cmath>
 #include <set>
+#include <span>
 #include <sstream>
 
 namespace toehold {
@@ -67,7 +68,10 @@ std::vector<Place> places_by_spacing(const ToeLine& toe, double spacing) {
 
 // Facets that touch x: those of the nodes of the closest facet, within a small distance.
 std::vector<int> facets_at(const Surface& surface, const Place& place) {
-  if (place.node >= 0) return surface.facets_of_point(place.node);
+  if (place.node >= 0) {
+    const std::span<const int> at_node = surface.facets_of_point(place.node);
+    return {at_node.begin(), at_node.end()};
+  }
   const SurfaceHit hit = surface.closest(place.x);
   std::set<int> ring;
   if (hit.facet < 0) return {};

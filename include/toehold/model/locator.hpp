@@ -5,6 +5,7 @@
 
 #include "toehold/common/tensor.hpp"
 #include "toehold/model/mesh.hpp"
+#include "toehold/model/near_cells.hpp"
 #include "toehold/model/stress_field.hpp"
 
 #include <vtkSmartPointer.h>
@@ -28,7 +29,9 @@ struct Host {
 
 class Locator {
 public:
-  explicit Locator(const Mesh& mesh);
+  // Over every cell of `mesh`, or with `near` over its cells only (points beyond their reach are then not
+  // found). `near` is used during construction only; hosts always carry the mesh's own cell ids.
+  explicit Locator(const Mesh& mesh, const NearCells* near = nullptr);
 
   // The cell holding x (mm). When x lies in no cell (faceted curved surfaces), the closest cell within
   // `tolerance` mm is taken, with its distance recorded. nullopt when no cell is that close.
@@ -41,7 +44,8 @@ public:
   std::optional<Host> locate(const Vec3& x, double tolerance, const CellFilter& refuse) const;
 
 private:
-  const Mesh* mesh_;  // must outlive the Locator
+  vtkSmartPointer<vtkUnstructuredGrid> cells_;   // the mesh's grid, or a grid of the near cells on its points
+  std::vector<long long> mesh_cell_;             // mesh cell id of each cell of cells_; empty: the same ids
   vtkSmartPointer<vtkStaticCellLocator> locator_;
   int max_cell_size_ = 0;  // most points in one cell, for weight buffers
 };

@@ -5,9 +5,11 @@
 
 #include "toehold/common/tensor.hpp"
 #include "toehold/model/mesh.hpp"
+#include "toehold/model/near_cells.hpp"
 
 #include <array>
 #include <memory>
+#include <span>
 #include <vector>
 
 namespace toehold {
@@ -27,7 +29,10 @@ struct SurfaceHit {
 
 class Surface {
 public:
-  explicit Surface(const Mesh& mesh);
+  // The whole outer surface of `mesh`, or with `near` only the facets within reach of its seeds (every one of
+  // them on the whole mesh's surface, and every surface point within reach on one of them). `near` is used
+  // during construction only.
+  explicit Surface(const Mesh& mesh, const NearCells* near = nullptr);
 
   const std::vector<Facet>& facets() const { return facets_; }
   // Facets sharing the edge (a, b), in no particular order (two on a closed manifold surface).
@@ -35,7 +40,7 @@ public:
   // The facet across edge (a, b) of `facet`, or -1 when there is none.
   int neighbour(int facet, long long a, long long b) const;
   // Facets that use mesh point p (empty when p is not on the surface).
-  const std::vector<int>& facets_of_point(long long p) const;
+  std::span<const int> facets_of_point(long long p) const;
   bool on_surface(long long p) const { return !facets_of_point(p).empty(); }
   // Surface points joined to p by a facet edge.
   std::vector<long long> edge_neighbours(long long p) const;
@@ -53,7 +58,9 @@ private:
 
   const Mesh* mesh_;  // must outlive the Surface
   std::vector<Facet> facets_;
-  std::vector<std::vector<int>> point_facets_;  // by mesh point id
+  std::vector<long long> point_start_;  // by mesh point id, + 1: point p's facets are
+                                       // point_facet_[point_start_[p] .. point_start_[p + 1])
+  std::vector<int> point_facet_;
   std::vector<long long> canonical_;            // by mesh point id; empty when no two points coincide
   std::shared_ptr<FacetIndex> index_;
 };
