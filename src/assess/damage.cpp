@@ -7,6 +7,7 @@
 
 #include <cmath>
 #include <limits>
+#include <span>
 #include <vector>
 
 namespace toehold::detail {
@@ -92,28 +93,49 @@ void evaluate_blocks(StationResult& r, const std::vector<InPlaneStress>& steps, 
 
 namespace {
 
-// The station's hot-spot value at every history row, rows split over threads (each row is computed alone, by
-// the same expression as a serial loop, so the values do not depend on the thread count).
-std::vector<double> unit_case_values(const std::vector<InPlaneStress>& cases, const std::vector<double>& h,
-                                     const ToeDamage& d, const LoadHistory& history, HotSpotDefinition definition) {
-  const std::size_t k_count = cases.size(), rows = history.rows();
-  std::vector<double> values(rows);
-  const bool linear = definition == HotSpotDefinition::perpendicular;
-  parallel_for(rows, 1 << 15, [&](std::size_t begin, std::size_t end) {
+// The station's hot-spot values of history rows [begin, end) into out[0, end - begin). Each row is computed
+// alone by the same expression wherever it runs, so the values do not depend on the thread count or blocking.
+struct UnitCaseRows {
+  const std::vector<InPlaneStress>& cases;
+  const std::vector<double>& h;  // hot-spot value of each unit case, MPa
+  const ToeDamage& d;
+  const LoadHistory& history;
+  bool linear;                   // perpendicular definition: the value is sum_k c_k(t) h_k, no tensor per row
+
+  void operator()(std::size_t begin, std::size_t end, double* out) const {
+    const std::size_t k_count = cases.size();
     const double* c = history.factors.data() + begin * k_count;
-    for (std::size_t t = begin; t < end; ++t, c += k_count) {
-      if (linear) {  // the hot-spot history is sum_k c_k(t) h_k, no tensor per row
+    for (std::size_t t = begin; t < end; ++t, c += k_count, ++out) {
+      if (linear) {
         double value = 0.0;
         for (std::size_t k = 0; k < k_count; ++k) value += c[k] * h[k];
-        values[t] = value;
+        *out = value;
         continue;
       }
       InPlaneStress s;  // the definition applies to the combined in-plane stress of each row
       for (std::size_t k = 0; k < k_count; ++k) s += c[k] * cases[k];
-      values[t] = d.scalar(s);
+      *out = d.scalar(s);
     }
-  });
-  return values;
+  }
+};
+
+// All rows' values split over threads, then counted in order.
+void count_all_rows(RainflowCounter& counter, const UnitCaseRows& rows, std::size_t row_count) {
+  std::vector<double> values(row_count);
+  parallel_for(row_count, 1 << 15, [&](std::size_t begin, std::size_t end) { rows(begin, end, values.data() + begin); });
+  counter.push(values);
+}
+
+// Rows on this thread only (the stations already run in parallel): values in small blocks that stay in the
+// cache, each counted as soon as it is made.
+void count_rows_in_blocks(RainflowCounter& counter, const UnitCaseRows& rows, std::size_t row_count) {
+  constexpr std::size_t kBlock = 4096;
+  std::vector<double> block(std::min(kBlock, row_count));
+  for (std::size_t begin = 0; begin < row_count; begin += kBlock) {
+    const std::size_t end = std::min(row_count, begin + kBlock);
+    rows(begin, end, block.data());
+    counter.push(std::span<const double>(block.data(), end - begin));
+  }
 }
 
 }  // namespace
@@ -121,8 +143,10 @@ std::vector<double> unit_case_values(const std::vector<InPlaneStress>& cases, co
 void evaluate_unit_cases(StationResult& r, const std::vector<InPlaneStress>& cases, const ToeDamage& d,
                          const LoadHistory& history, HotSpotDefinition definition) {
   record_hot_spots(r, cases, d.scalar);
+  const UnitCaseRows rows{cases, r.hot_spot, d, history, definition == HotSpotDefinition::perpendicular};
   RainflowCounter counter;
-  counter.push(unit_case_values(cases, r.hot_spot, d, history, definition));
+  if (inside_parallel_for()) count_rows_in_blocks(counter, rows, history.rows());
+  else count_all_rows(counter, rows, history.rows());
   const std::vector<StressCycle> cycles = counter.finish(d.residue);
   store(r, spectrum_damage(cycles, d.curve, d.rules), d);
 }

@@ -36,6 +36,12 @@ void check_cycle(const SnCurve& curve, const StressCycle& c, std::size_t positio
                 "; counts must be finite and >= 0");
 }
 
+void check_reference_cycles(const SnCurve& curve, double reference_cycles) {
+  if (!std::isfinite(reference_cycles) || reference_cycles <= 0.0)
+    throw Error(sum_label(curve) + ": reference number of cycles " + number_text(reference_cycles) +
+                " for the equivalent range must be finite and > 0");
+}
+
 // n / N, with no damage where N is infinite.
 double cycle_damage(const SnCurve& curve, const StressCycle& c) {
   const double n = curve.cycles_to_failure(c.range, Amplitude::variable);
@@ -68,12 +74,9 @@ MinerLimit parse_miner_limit(std::string_view text, const std::string& where) {
 }
 
 double miner_damage(const SnCurve& curve, std::span<const StressCycle> cycles) {
-  double sum = 0.0;
-  for (std::size_t i = 0; i < cycles.size(); ++i) {
-    check_cycle(curve, cycles[i], i);
-    sum += cycle_damage(curve, cycles[i]);
-  }
-  return sum;
+  MinerTally tally(curve, 0);
+  for (std::size_t i = 0; i < cycles.size(); ++i) tally.add(cycles[i], i);
+  return tally.damage();
 }
 
 double constant_amplitude_damage(const SnCurve& curve, double range_mpa, double cycles) {
@@ -84,11 +87,13 @@ double constant_amplitude_damage(const SnCurve& curve, double range_mpa, double 
 }
 
 double equivalent_range(const SnCurve& curve, std::span<const StressCycle> cycles, double reference_cycles) {
-  if (!std::isfinite(reference_cycles) || reference_cycles <= 0.0)
-    throw Error(sum_label(curve) + ": reference number of cycles " + number_text(reference_cycles) +
-                " for the equivalent range must be finite and > 0");
+  check_reference_cycles(curve, reference_cycles);
+  return equivalent_range_of_damage(curve, miner_damage(curve, cycles), reference_cycles);
+}
+
+double equivalent_range_of_damage(const SnCurve& curve, double damage, double reference_cycles) {
+  check_reference_cycles(curve, reference_cycles);
   const SnSegment& first = curve.segments().front();
-  const double damage = miner_damage(curve, cycles);
   return first.range_at(reference_cycles) * std::pow(damage, 1.0 / first.slope);
 }
 
@@ -105,22 +110,36 @@ double life_in_repeats(double damage_per_repeat, double allowable_damage) {
 
 std::vector<CycleDamage> governing_cycles(const SnCurve& curve, std::span<const StressCycle> cycles,
                                           std::size_t how_many) {
-  std::vector<CycleDamage> all;
-  all.reserve(cycles.size());
-  double total = 0.0;
-  for (std::size_t i = 0; i < cycles.size(); ++i) {
-    check_cycle(curve, cycles[i], i);
-    all.push_back({cycles[i], i, cycle_damage(curve, cycles[i]), 0.0});
-    total += all.back().damage;
-  }
-  const std::size_t keep = std::min(how_many, all.size());
-  std::partial_sort(all.begin(), all.begin() + static_cast<std::ptrdiff_t>(keep), all.end(),
-                    [](const CycleDamage& a, const CycleDamage& b) {
-                      return a.damage != b.damage ? a.damage > b.damage : a.position < b.position;
-                    });
-  all.resize(keep);
-  for (CycleDamage& d : all) d.share = total > 0.0 ? d.damage / total : 0.0;
-  return all;
+  MinerTally tally(curve, how_many);
+  for (std::size_t i = 0; i < cycles.size(); ++i) tally.add(cycles[i], i);
+  return tally.governing();
+}
+
+MinerTally::MinerTally(const SnCurve& curve, std::size_t how_many) : curve_(&curve), how_many_(how_many) {
+  top_.reserve(std::min<std::size_t>(how_many, 64));
+}
+
+void MinerTally::add(const StressCycle& cycle, std::size_t position) {
+  check_cycle(*curve_, cycle, position);
+  const double damage = cycle_damage(*curve_, cycle);
+  sum_ += damage;
+  if (how_many_ > 0) keep_if_governing(cycle, position, damage);
+}
+
+// Positions only grow, so a new cycle goes before a kept one exactly when it does more damage: the kept list
+// is what a sort by (damage descending, position ascending) would put first.
+void MinerTally::keep_if_governing(const StressCycle& cycle, std::size_t position, double damage) {
+  if (top_.size() == how_many_ && !(damage > top_.back().damage)) return;
+  if (top_.size() == how_many_) top_.pop_back();
+  auto at = top_.end();
+  while (at != top_.begin() && damage > (at - 1)->damage) --at;
+  top_.insert(at, CycleDamage{cycle, position, damage, 0.0});
+}
+
+std::vector<CycleDamage> MinerTally::governing() const {
+  std::vector<CycleDamage> out = top_;
+  for (CycleDamage& d : out) d.share = sum_ > 0.0 ? d.damage / sum_ : 0.0;
+  return out;
 }
 
 }  // namespace toehold

@@ -6,7 +6,9 @@
 #include <algorithm>
 #include <array>
 #include <cassert>
+#include <bit>
 #include <cmath>
+#include <cstdint>
 #include <utility>
 
 namespace toehold {
@@ -20,6 +22,23 @@ constexpr std::array<std::pair<std::string_view, ResidueRule>, 2> kResidueRules{
 }};
 
 int sign(double x) { return (x > 0.0) - (x < 0.0); }
+
+// Length of the leading run of finite values: blocks are tested without a branch per value, and only a block
+// with a bad value is searched for it.
+std::size_t finite_prefix(std::span<const double> values) {
+  constexpr std::size_t kBlock = 256;
+  constexpr std::uint64_t kExponent = 0x7ff0000000000000u;  // all exponent bits set: inf or nan
+  for (std::size_t begin = 0; begin < values.size(); begin += kBlock) {
+    const std::size_t end = std::min(values.size(), begin + kBlock);
+    std::uint64_t bad = 0;
+    for (std::size_t i = begin; i < end; ++i)
+      bad |= static_cast<std::uint64_t>((std::bit_cast<std::uint64_t>(values[i]) & kExponent) == kExponent);
+    if (bad == 0) continue;
+    for (std::size_t i = begin; i < end; ++i)
+      if (!std::isfinite(values[i])) return i;
+  }
+  return values.size();
+}
 
 StressCycle cycle_between(double a, std::size_t ia, double b, std::size_t ib, double count) {
   return {std::abs(b - a), 0.5 * (a + b), count, ia, ib};
@@ -51,8 +70,37 @@ void RainflowCounter::push(double value) {
   push_point(value, next_index_++);
 }
 
+// The finite run is counted by the tight loop; a bad value then throws through push(double), after the values
+// before it have gone in (as pushing them one at a time would).
 void RainflowCounter::push(std::span<const double> values) {
-  for (double v : values) push(v);
+  const std::size_t good = finite_prefix(values);
+  push_finite(values.first(good));
+  if (good < values.size()) push(values[good]);
+}
+
+// The same steps as push_point for every value, with the state in locals: once the first run has a direction,
+// a value either extends the run (new extreme), repeats the extreme (plateau) or reverses it (turning point).
+void RainflowCounter::push_finite(std::span<const double> values) {
+  const std::size_t base = next_index_, n = values.size();
+  std::size_t i = 0;
+  for (; i < n && direction_ == 0; ++i) push_point(values[i], base + i);
+  Point run = pending_;
+  bool rising = direction_ > 0;
+  for (; i < n; ++i) {
+    const double v = values[i];
+    if (rising ? v > run.value : v < run.value) {
+      run = {v, base + i};
+    } else if (v != run.value) {
+      add_turning_point(run);
+      rising = !rising;
+      run = {v, base + i};
+    }
+  }
+  if (direction_ != 0) {
+    pending_ = run;
+    direction_ = rising ? 1 : -1;
+  }
+  next_index_ = base + n;
 }
 
 // Turning-point extraction: a run's extreme becomes a turning point when the direction reverses.

@@ -66,6 +66,18 @@ void check_tail_and_cutoff(const SnCurveSpec& spec) {
                 " must be > 0 (infinity for a fatigue limit)");
 }
 
+// Band of ranges (MPa) and intercepts where a / ds^m with m <= kMaxWholeSlope stays a normal number.
+constexpr int kMaxWholeSlope = 8;
+constexpr double kFastRangeLow = 1e-20, kFastRangeHigh = 1e20;
+constexpr double kFastInterceptLow = 1e-90, kFastInterceptHigh = 1e90;
+
+// x^m by repeated multiplication, m >= 1.
+double whole_power(double x, int m) {
+  double p = x;
+  for (int i = 1; i < m; ++i) p *= x;
+  return p;
+}
+
 }  // namespace
 
 std::string to_string(StressKind kind) { return kind == StressKind::normal ? "normal" : "shear"; }
@@ -94,6 +106,7 @@ SnCurve::SnCurve(SnCurveSpec spec) : spec_(std::move(spec)) {
   for (std::size_t i = 0; i < spec_.segments.size(); ++i) check_segment(spec_, i);
   knees_ = find_knees(spec_);
   check_tail_and_cutoff(spec_);
+  for (const SnSegment& s : spec_.segments) whole_.push_back(whole_slope_form(s));
   if (spec_.constant_amplitude) {
     const double n = spec_.constant_amplitude->knee_cycles;
     ca_knee_ = SnKnee{n, spec_.segments[segment_for_cycles(n)].range_at(n)};
@@ -129,7 +142,24 @@ double SnCurve::cycles_to_failure(double range_mpa, Amplitude amplitude) const {
     if (std::isinf(m)) return kInf;
     return ca_knee_->cycles * std::pow(ca_knee_->range / range_mpa, m);
   }
-  return spec_.segments[segment_for_range(range_mpa)].cycles_at(range_mpa);
+  return variable_amplitude_cycles(range_mpa);
+}
+
+// The segment's fast form, or {0, 0} when it must use the plain one.
+SnCurve::WholeSlopeSegment SnCurve::whole_slope_form(const SnSegment& segment) {
+  const double intercept = std::pow(10.0, segment.log10_a);
+  const bool whole = segment.slope == std::floor(segment.slope) && segment.slope <= kMaxWholeSlope;
+  if (!whole || !(intercept >= kFastInterceptLow && intercept <= kFastInterceptHigh)) return {};
+  return {intercept, static_cast<int>(segment.slope)};
+}
+
+// N on the VA segment that holds range_mpa (> 0): the fast form where it applies, else the plain one.
+double SnCurve::variable_amplitude_cycles(double range_mpa) const {
+  const std::size_t i = segment_for_range(range_mpa);
+  const WholeSlopeSegment& w = whole_[i];
+  if (w.slope > 0 && range_mpa >= kFastRangeLow && range_mpa <= kFastRangeHigh)
+    return w.intercept / whole_power(range_mpa, w.slope);
+  return spec_.segments[i].cycles_at(range_mpa);
 }
 
 double SnCurve::allowable_range(double cycles, Amplitude amplitude) const {

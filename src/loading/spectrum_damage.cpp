@@ -23,33 +23,35 @@ void check_cycle(const StressCycle& c, std::size_t i) {
                 std::to_string(c.count) + " must be finite numbers of 0 or more");
 }
 
-// The cycles as the curve sees them: gamma_F gamma_M ds / f(R).
-std::vector<StressCycle> factored(std::span<const StressCycle> cycles, const DamageRules& rules) {
-  std::vector<StressCycle> out(cycles.begin(), cycles.end());
-  const double factor = rules.gamma_F * rules.gamma_M;
-  for (std::size_t i = 0; i < out.size(); ++i) {
-    check_cycle(out[i], i);
-    out[i].range *= factor / mean_stress_factor(cycles[i], rules.mean_stress);
-  }
+// The cycle as the curve sees it: range gamma_F gamma_M ds / f(R).
+StressCycle factored(const StressCycle& c, const DamageRules& rules) {
+  StressCycle out = c;
+  out.range *= rules.gamma_F * rules.gamma_M / mean_stress_factor(c, rules.mean_stress);
   return out;
 }
 
 }  // namespace
 
+// Every input cycle is checked before any is factored (the order of the errors), then each factored cycle's
+// n / N is evaluated once for the sum, the equivalent range and the governing cycles.
 SpectrumDamage spectrum_damage(std::span<const StressCycle> cycles, const SnCurve& curve, const DamageRules& rules) {
   if (!(rules.damage_limit > 0.0)) throw Error("allowable damage sum must be greater than 0");
-  const std::vector<StressCycle> design = factored(cycles, rules);
   SpectrumDamage d;
-  d.damage = miner_damage(curve, design);
+  for (std::size_t i = 0; i < cycles.size(); ++i) {
+    check_cycle(cycles[i], i);
+    d.largest_range = std::max(d.largest_range, cycles[i].range);
+  }
+  MinerTally tally(curve, rules.governing);
+  for (std::size_t i = 0; i < cycles.size(); ++i) tally.add(factored(cycles[i], rules), i);
+  d.damage = tally.damage();
   d.utilization = d.damage / rules.damage_limit;
   d.life_repeats = life_in_repeats(d.damage, rules.damage_limit);
   d.life_years = rules.repeats_per_year > 0 ? d.life_repeats / rules.repeats_per_year
                                             : std::numeric_limits<double>::quiet_NaN();
   d.cycles = total_count(cycles);
   d.life_cycles = d.life_repeats * d.cycles;
-  for (const StressCycle& c : cycles) d.largest_range = std::max(d.largest_range, c.range);
-  d.equivalent_range = design.empty() ? 0.0 : equivalent_range(curve, design) / rules.gamma_M;
-  d.governing = governing_cycles(curve, design, rules.governing);
+  d.equivalent_range = cycles.empty() ? 0.0 : equivalent_range_of_damage(curve, d.damage) / rules.gamma_M;
+  d.governing = tally.governing();
   for (CycleDamage& g : d.governing) g.cycle = cycles[g.position];
   return d;
 }

@@ -4,9 +4,11 @@
 #include "toehold/fatigue/sn_catalogue.hpp"
 #include "support/support.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <functional>
 #include <limits>
+#include <random>
 #include <string>
 #include <vector>
 
@@ -23,6 +25,40 @@ std::string error_of(const std::function<void()>& fn) {
 }
 
 StressCycle cycles_of(double range, double count) { return {range, 0.0, count, kNoIndex, kNoIndex}; }
+
+// Random cycle list: ranges 0..300 MPa on a 0.5 MPa grid (so equal damages, ties, occur), counts 0.5 or 1 or a
+// block count, means anywhere.
+std::vector<StressCycle> random_cycles(unsigned seed, std::size_t n) {
+  std::mt19937 gen(seed);
+  std::uniform_int_distribution<int> half_mpa(0, 600), kind(0, 2);
+  std::uniform_real_distribution<double> mean(-100.0, 100.0), block(0.0, 1e4);
+  std::vector<StressCycle> out(n);
+  for (std::size_t i = 0; i < n; ++i) {
+    const int k = kind(gen);
+    out[i] = {0.5 * half_mpa(gen), mean(gen), k == 0 ? 0.5 : k == 1 ? 1.0 : block(gen), i, i + 1};
+  }
+  return out;
+}
+
+// The plain reference: every cycle's n / N, summed in list order, and the whole list sorted by damage
+// (descending, earlier position first on ties).
+struct PlainMiner {
+  double sum = 0.0;
+  std::vector<CycleDamage> sorted;
+};
+
+PlainMiner plain_miner(const SnCurve& curve, const std::vector<StressCycle>& cycles) {
+  PlainMiner p;
+  for (std::size_t i = 0; i < cycles.size(); ++i) {
+    const double n = curve.cycles_to_failure(cycles[i].range, Amplitude::variable);
+    const double d = std::isinf(n) ? 0.0 : cycles[i].count / n;
+    p.sum += d;
+    p.sorted.push_back({cycles[i], i, d, 0.0});
+  }
+  std::stable_sort(p.sorted.begin(), p.sorted.end(),
+                   [](const CycleDamage& a, const CycleDamage& b) { return a.damage > b.damage; });
+  return p;
+}
 
 }  // namespace
 
@@ -102,6 +138,40 @@ TEST(Miner, GoverningCyclesAreTheMostDamaging) {
   EXPECT_EQ(top[1].position, 0u);
   EXPECT_CLOSE(top[1].damage, 0.118519, 1e-5);
   EXPECT_EQ(governing_cycles(iiw_fat(90.0), spectrum, 10).size(), 3u);
+}
+
+// The one-pass tally (miner_damage, governing_cycles, MinerTally) against the plain sum and full sort above, on
+// random lists with many ties: the same sum bit for bit, the same governing cycles in the same order.
+TEST(Miner, OnePassTallyEqualsPlainSumAndSort) {
+  const std::vector<SnCurve> curves{iiw_fat(90.0), user_segment_curve("cut", {SnSegment::through(3.0, 90.0, 2e6)}, 40.0)};
+  for (unsigned seed = 1; seed <= 20; ++seed) {
+    const std::vector<StressCycle> cycles = random_cycles(seed, 2000);
+    for (const SnCurve& curve : curves) {
+      const PlainMiner plain = plain_miner(curve, cycles);
+      EXPECT_EQ(miner_damage(curve, cycles), plain.sum);
+      EXPECT_EQ(equivalent_range(curve, cycles), equivalent_range_of_damage(curve, plain.sum));
+      for (std::size_t how_many : {0u, 1u, 3u, 25u, 5000u}) {
+        const std::vector<CycleDamage> top = governing_cycles(curve, cycles, how_many);
+        ASSERT_EQ(top.size(), std::min(how_many, cycles.size()));
+        for (std::size_t i = 0; i < top.size(); ++i) {
+          EXPECT_EQ(top[i].position, plain.sorted[i].position);
+          EXPECT_EQ(top[i].damage, plain.sorted[i].damage);
+          EXPECT_EQ(top[i].share, plain.sorted[i].damage / plain.sum);
+          EXPECT_EQ(top[i].cycle.range, cycles[top[i].position].range);
+        }
+      }
+    }
+  }
+}
+
+// The equivalent range from a known Miner sum: FAT 90 D^(1/3) (IIW 2016 sec. 4.3.1 [M]; 90 x 0.125^(1/3) = 45
+// MPa, derived [D]).
+TEST(Miner, EquivalentRangeOfAKnownDamage) {
+  EXPECT_CLOSE(equivalent_range_of_damage(iiw_fat(90.0), 0.125), 45.0, 1e-13);
+  EXPECT_EQ(equivalent_range_of_damage(iiw_fat(90.0), 0.0), 0.0);
+  EXPECT_EQ(error_of([] { equivalent_range_of_damage(iiw_fat(90.0), 0.5, 0.0); }),
+            "Miner sum on S-N curve 'IIW FAT 90 (steel, normal stress)': reference number of cycles 0 for the "
+            "equivalent range must be finite and > 0");
 }
 
 TEST(Miner, BadCyclesAreErrors) {

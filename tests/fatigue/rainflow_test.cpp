@@ -9,6 +9,7 @@
 #include <cstdlib>
 #include <map>
 #include <random>
+#include <span>
 #include <vector>
 
 namespace toehold {
@@ -36,6 +37,61 @@ std::vector<double> started_at_peak(const std::vector<double>& h) {
   std::vector<double> out(peak, h.end());
   out.insert(out.end(), h.begin(), peak + 1);
   return out;
+}
+
+// Real-valued history: a slow sine with noise, some values repeated (plateaus) and some runs (drop-outs).
+std::vector<double> random_real_history(unsigned seed, std::size_t n) {
+  std::mt19937 gen(seed);
+  std::normal_distribution<double> noise(0.0, 30.0);
+  std::uniform_int_distribution<int> pick(0, 9);
+  std::vector<double> h(n);
+  for (std::size_t i = 0; i < n; ++i) {
+    const int p = pick(gen);
+    if (i > 0 && p == 0) h[i] = h[i - 1];
+    else if (i > 0 && p == 1) h[i] = h[i - 1] + 1.0;
+    else h[i] = 100.0 * std::sin(0.01 * static_cast<double>(i)) + noise(gen);
+  }
+  return h;
+}
+
+// The history pushed one value at a time (the plain per-value path), counted by rule.
+std::vector<StressCycle> counted_value_by_value(const std::vector<double>& h, ResidueRule rule) {
+  RainflowCounter counter;
+  for (double v : h) counter.push(v);
+  return counter.finish(rule);
+}
+
+// The history pushed as spans of random lengths 0..max_chunk (the bulk path), counted by rule.
+std::vector<StressCycle> counted_in_chunks(const std::vector<double>& h, ResidueRule rule, unsigned seed,
+                                           std::size_t max_chunk) {
+  std::mt19937 gen(seed);
+  std::uniform_int_distribution<std::size_t> length(0, max_chunk);
+  RainflowCounter counter;
+  std::vector<StressCycle> out;
+  for (std::size_t at = 0; at < h.size();) {
+    const std::size_t n = std::min(length(gen), h.size() - at);
+    counter.push(std::span<const double>(h).subspan(at, n));
+    at += n;
+    if (n % 3 == 0) {
+      const std::vector<StressCycle> part = counter.take_closed_cycles();
+      out.insert(out.end(), part.begin(), part.end());
+    }
+  }
+  const std::vector<StressCycle> rest = counter.finish(rule);
+  out.insert(out.end(), rest.begin(), rest.end());
+  return out;
+}
+
+// Same cycles in the same order: ranges, means, counts and indices all bit for bit.
+void expect_same_cycles(const std::vector<StressCycle>& actual, const std::vector<StressCycle>& expected) {
+  ASSERT_EQ(actual.size(), expected.size());
+  for (std::size_t i = 0; i < actual.size(); ++i) {
+    EXPECT_EQ(actual[i].range, expected[i].range) << "cycle " << i;
+    EXPECT_EQ(actual[i].mean, expected[i].mean) << "cycle " << i;
+    EXPECT_EQ(actual[i].count, expected[i].count) << "cycle " << i;
+    EXPECT_EQ(actual[i].first, expected[i].first) << "cycle " << i;
+    EXPECT_EQ(actual[i].last, expected[i].last) << "cycle " << i;
+  }
 }
 
 }  // namespace
@@ -136,6 +192,37 @@ TEST(Rainflow, MillionsOfPoints) {
   for (std::size_t i = 0; i < h.size(); ++i) h[i] = (i % 2 == 0 ? 100.0 : -100.0) + static_cast<double>(i % 7);
   const std::vector<StressCycle> cycles = rainflow_count(h);
   EXPECT_EQ(total_count(cycles), 0.5 * static_cast<double>(h.size() - 1));
+}
+
+// The bulk push of a span (tight turning-point loop) gives exactly the cycles of pushing the values one by one,
+// whatever the span lengths, for integer histories full of ties and plateaus and for real-valued ones.
+TEST(Rainflow, BulkPushEqualsValueByValue) {
+  for (unsigned seed = 1; seed <= 40; ++seed) {
+    std::vector<double> h = seed % 2 ? random_history(seed, 3000) : random_real_history(seed, 3000);
+    if (seed % 5 == 0) h.insert(h.begin(), 7, h.front());  // a plateau before the first run has a direction
+    for (ResidueRule rule : {ResidueRule::half_cycles, ResidueRule::repeat_history}) {
+      const std::vector<StressCycle> plain = counted_value_by_value(h, rule);
+      expect_same_cycles(counted_in_chunks(h, rule, seed, 1), plain);
+      expect_same_cycles(counted_in_chunks(h, rule, seed, 50), plain);
+      expect_same_cycles(rainflow_count(h, rule), plain);
+    }
+  }
+}
+
+// A bad value inside a span: the values before it are counted, the error names its index in the history.
+TEST(Rainflow, BulkPushStopsAtTheFirstBadValue) {
+  RainflowCounter counter;
+  counter.push(std::vector<double>{1.0, 2.0, 3.0});
+  std::vector<double> more(600, 1.0);
+  for (std::size_t i = 0; i < more.size(); ++i) more[i] = static_cast<double>(i % 5);
+  more[517] = std::nan("");
+  more[590] = std::numeric_limits<double>::infinity();
+  EXPECT_EQ(test::error_of([&] { counter.push(more); }),
+            "rainflow count: history value nan at index 520 is not finite; remove or repair that value");
+  EXPECT_EQ(counter.values_pushed(), 520u);
+  std::vector<double> first_520{1.0, 2.0, 3.0};
+  first_520.insert(first_520.end(), more.begin(), more.begin() + 517);
+  expect_same_cycles(counter.finish(ResidueRule::half_cycles), rainflow_count(first_520));
 }
 
 TEST(Rainflow, MergeAndBinRanges) {

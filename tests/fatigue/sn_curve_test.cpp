@@ -3,10 +3,13 @@
 #include "toehold/fatigue/sn_curve.hpp"
 #include "support/support.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <functional>
 #include <limits>
+#include <random>
 #include <string>
+#include <vector>
 
 namespace toehold {
 namespace {
@@ -20,6 +23,30 @@ std::string error_of(const std::function<void()>& fn) {
     return e.what();
   }
   return "no error";
+}
+
+// The VA segment that holds range ds (MPa): the first whose knee range it is not below (as the curve picks).
+const SnSegment& segment_holding(const SnCurve& c, double ds) {
+  std::size_t i = 0;
+  const std::vector<SnKnee> knees = c.knees();
+  while (i < knees.size() && ds < knees[i].range) ++i;
+  return c.segments()[i];
+}
+
+// N = 10^(log10_a - m log10 ds) in long double (64-bit mantissa): the reference both forms are measured against.
+double extended_precision_cycles(const SnSegment& s, double ds) {
+  const long double y = static_cast<long double>(s.log10_a) -
+                        static_cast<long double>(s.slope) * std::log10(static_cast<long double>(ds));
+  return static_cast<double>(std::pow(10.0L, y));
+}
+
+// Ranges spread evenly in log10 between 1e-3 and 1e5 MPa (both sides of every knee).
+std::vector<double> random_ranges(unsigned seed, std::size_t n) {
+  std::mt19937 gen(seed);
+  std::uniform_real_distribution<double> exponent(-3.0, 5.0);
+  std::vector<double> out(n);
+  for (double& ds : out) ds = std::pow(10.0, exponent(gen));
+  return out;
 }
 
 }  // namespace
@@ -105,6 +132,41 @@ TEST(SnCurve, ScaledCurveMultipliesRanges) {
   EXPECT_CLOSE(s.cycles_to_failure(40.0 * 0.8685, Amplitude::constant), c.cycles_to_failure(40.0, Amplitude::constant), 1e-10);
   EXPECT_CLOSE(s.knees()[0].cycles, 1e7, 1e-10);
   EXPECT_EQ(s.name(), "IIW FAT 90 (steel, normal stress), f(t) = 0.8685");
+}
+
+// cycles_to_failure evaluates whole slopes (3, 5) as a / ds^m by multiplication instead of the plain
+// 10^(log10_a - m log10 ds) of SnSegment::cycles_at. On 20,000 random ranges per curve the two agree to
+// 1e-14 relative, and where the fast form applies it is within 8e-16 (under 4 ulp) of the extended-precision
+// value (derived [D]: a rounded once, at most 7 multiplications and one division, 0.5 ulp each, for m <= 8; the
+// plain form loses about ulp(y) ln 10 relative in 10^y, some 10 ulp for y near 15).
+TEST(SnCurve, WholeSlopeFormMatchesThePlainLogForm) {
+  const std::vector<SnCurve> curves{iiw_fat(90.0), iiw_fat(80.0, SnMaterial::steel, StressKind::shear),
+                                    iiw_fat(36.0, SnMaterial::aluminium), en_1993_detail(71.0),
+                                    dnv_air_curve("D"), iiw_fat(90.0).scaled(0.8685, "f(t)")};
+  for (const SnCurve& c : curves) {
+    double worst_fast = 0.0;
+    for (double ds : random_ranges(11, 20000)) {
+      const double fast = c.cycles_to_failure(ds, Amplitude::variable);
+      if (std::isinf(fast)) continue;  // below the cut-off
+      const SnSegment& s = segment_holding(c, ds);
+      EXPECT_CLOSE(fast, s.cycles_at(ds), 1e-14);
+      if (s.slope != std::floor(s.slope) || s.slope > 8.0) continue;  // e.g. shear m = 9 beyond 1e8: plain form
+      const double exact = extended_precision_cycles(s, ds);
+      worst_fast = std::max(worst_fast, std::abs(fast - exact) / exact);
+    }
+    EXPECT_LE(worst_fast, 8e-16) << c.name();
+  }
+}
+
+// Slopes that are not whole numbers, and ranges outside 1e-20..1e20 MPa, keep the plain form bit for bit.
+TEST(SnCurve, OtherSlopesAndExtremeRangesUseThePlainForm) {
+  const SnCurve odd = user_segment_curve("odd", {SnSegment::through(3.5, 90.0, 2e6)});
+  for (double ds : random_ranges(12, 2000)) EXPECT_EQ(odd.cycles_to_failure(ds), odd.segments()[0].cycles_at(ds));
+  const SnCurve c = iiw_fat(90.0);
+  EXPECT_EQ(c.cycles_to_failure(1e25), c.segments()[0].cycles_at(1e25));
+  EXPECT_EQ(c.cycles_to_failure(1e-25), c.segments()[1].cycles_at(1e-25));
+  const SnCurve steep = user_segment_curve("steep", {SnSegment::through(9.0, 90.0, 2e6)});
+  EXPECT_EQ(steep.cycles_to_failure(50.0), steep.segments()[0].cycles_at(50.0));
 }
 
 TEST(SnCurve, CurveWithNoSegmentsIsAnError) {

@@ -43,6 +43,8 @@ double constant_amplitude_damage(const SnCurve& curve, double range_mpa, double 
 // relates ds_eq to the total number of cycles. reference_cycles: > 0, finite.
 double equivalent_range(const SnCurve& curve, std::span<const StressCycle> cycles,
                         double reference_cycles = kReferenceCycles);
+// The same from a Miner sum already known: ds_1(N_ref) D^(1/m1). damage: D >= 0; reference_cycles as above.
+double equivalent_range_of_damage(const SnCurve& curve, double damage, double reference_cycles = kReferenceCycles);
 
 // Repeats of the history until the Miner sum reaches allowable_damage: allowable / D.
 // Infinity when the history does no damage. damage_per_repeat >= 0, allowable_damage > 0.
@@ -59,5 +61,29 @@ struct CycleDamage {
 // The how_many most damaging cycles, most damaging first (ties: earlier position first).
 std::vector<CycleDamage> governing_cycles(const SnCurve& curve, std::span<const StressCycle> cycles,
                                           std::size_t how_many);
+
+// Miner sum and governing cycles in one pass, n / N evaluated once per cycle: cycles are added in list order
+// and the results are those of miner_damage and governing_cycles on the same list (the same sum, in the same
+// order). Memory: the how_many most damaging cycles only.
+class MinerTally {
+public:
+  // curve: outlives the tally. how_many: governing cycles to keep (0: the sum only).
+  MinerTally(const SnCurve& curve, std::size_t how_many);
+
+  // Next cycle of the list (range MPa, count >= 0, both finite); position: its 0-based place in the list, for
+  // the governing cycles and the Error naming the cycle (as miner_damage).
+  void add(const StressCycle& cycle, std::size_t position);
+
+  double damage() const { return sum_; }  // D = sum n / N so far
+  std::vector<CycleDamage> governing() const;  // most damaging first, shares of the sum so far
+
+private:
+  void keep_if_governing(const StressCycle& cycle, std::size_t position, double damage);
+
+  const SnCurve* curve_;
+  std::size_t how_many_;
+  double sum_ = 0.0;
+  std::vector<CycleDamage> top_;  // at most how_many_, most damaging first (ties: earlier position first)
+};
 
 }  // namespace toehold

@@ -50,6 +50,7 @@ private:
     std::size_t index;
   };
 
+  void push_finite(std::span<const double> values);
   void push_point(double value, std::size_t index);
   void add_turning_point(const Point& p);
   void flush_pending();

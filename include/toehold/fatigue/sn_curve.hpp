@@ -81,6 +81,8 @@ public:
 
   // Cycles to failure at stress range ds (MPa, >= 0, finite). Returns std::numeric_limits<double>::infinity()
   // when the range does no damage (below the cut-off, below a CA fatigue limit, or ds = 0).
+  // On a segment of whole slope m <= 8 it is a / ds^m by multiplication (within 1e-14 relative of
+  // SnSegment::cycles_at, closer to the exact line); other slopes use cycles_at itself.
   double cycles_to_failure(double range_mpa, Amplitude amplitude = Amplitude::variable) const;
   // Allowable stress range (MPa) at N cycles (> 0; infinity gives the range that does no damage, possibly 0).
   double allowable_range(double cycles, Amplitude amplitude = Amplitude::variable) const;
@@ -106,13 +108,24 @@ public:
   SnCurve scaled(double factor, const std::string& note) const;
 
 private:
+  // A VA segment prepared for fast evaluation: N = a / ds^m with ds^m by multiplication when m is a whole
+  // number 1..8 (the usual 3 and 5) and ds lies in a band where no power can overflow or underflow. The same
+  // line as SnSegment::cycles_at (10^(log10_a - m log10 ds)) to a few ulp, without a log and a pow per call.
+  struct WholeSlopeSegment {
+    double intercept = 0.0;  // a = 10^log10_a, N at ds = 1 MPa; 0 when the segment uses the plain form
+    int slope = 0;           // m when it is a whole number 1..8, else 0 (plain form)
+  };
+
   std::size_t segment_for_range(double range_mpa) const;
   std::size_t segment_for_cycles(double cycles) const;
   void check_range(double range_mpa) const;
+  double variable_amplitude_cycles(double range_mpa) const;
+  static WholeSlopeSegment whole_slope_form(const SnSegment& segment);
 
   SnCurveSpec spec_;
   std::vector<SnKnee> knees_;
   std::optional<SnKnee> ca_knee_;
+  std::vector<WholeSlopeSegment> whole_;  // one per VA segment
 };
 
 }  // namespace toehold
