@@ -8,7 +8,10 @@
 #include <string>
 #include <vector>
 
+#include <vtkSmartPointer.h>
+
 class vtkDataObject;
+class vtkOutputStream;
 class vtkXMLWriter;
 
 namespace toehold::detail {
@@ -74,8 +77,11 @@ std::string vtk_safe_name(std::string name);
 // Adds a string array `name` with `lines` to the field data of `data`.
 void add_field_strings(vtkDataObject* data, const std::string& name, const std::vector<std::string>& lines);
 
-// Runs an XML writer set up for `path` in binary appended, uncompressed form; VTK's messages are captured.
-// Throws Error naming the file when VTK reports a failure.
+// A base64 output stream that writes the same bytes as VTK's vtkBase64OutputStream, whole blocks at a time.
+vtkSmartPointer<vtkOutputStream> new_base64_stream();
+
+// Runs an XML writer set up for `path` in inline binary (base64), uncompressed form with 64-bit block headers,
+// through new_base64_stream; VTK's messages are captured. Throws Error naming the file when VTK reports a failure.
 void write_xml(vtkXMLWriter* writer, vtkDataObject* data, const std::string& path);
 
 void write_stations_vtp(const OutputContext& c, const std::string& path);
