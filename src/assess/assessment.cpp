@@ -182,12 +182,38 @@ PlacedRun place_on_model(const Plan& plan, std::unique_ptr<detail::ModelGeometry
   return place_solid(plan, *geometry, reporter);
 }
 
+// The points and cells whose stresses the placed toes read: the hosts of every read-out point, nominal sample
+// and linearization sample. None (read everything) when a nominal section is cut, which reads every cell it
+// crosses.
+StressSubsets read_entities(const PlacedRun& run, const Mesh& mesh) {
+  std::vector<long long> points, cells;
+  const auto add = [&](const Host& h) {
+    cells.push_back(h.cell);
+    points.insert(points.end(), h.points.begin(), h.points.end());
+  };
+  for (std::size_t t = 0; t < run.toes.size(); ++t) {
+    const PlacedToe& toe = run.toes[t];
+    if (toe.nominal && toe.nominal->plan.source == nominal::NominalSource::section) return {};
+    for (const detail::PlacedStation& s : toe.stations)
+      for (const Host& h : s.hosts) add(h);
+    if (toe.nominal)
+      for (const auto& h : toe.nominal->hosts)
+        if (h) add(*h);
+    for (const detail::ThicknessStation& s : run.linear[t].stations)
+      for (const Host& h : s.line.hosts) add(h);
+  }
+  vtkUnstructuredGrid* grid = mesh.grid();
+  return {std::make_shared<EntitySubset>(std::move(points), static_cast<std::size_t>(grid->GetNumberOfPoints())),
+          std::make_shared<EntitySubset>(std::move(cells), static_cast<std::size_t>(grid->GetNumberOfCells()))};
+}
+
 // Every load step's values at the placed stations, nominal samples and linearization lines.
 void record_solid(const Plan& plan, const detail::ModelGeometry& geometry, PlacedRun& run, Assessment& out,
                   Reporter& reporter) {
   run.values.resize(run.toes.size());
   for (std::size_t t = 0; t < run.toes.size(); ++t) run.values[t].resize(run.toes[t].stations.size());
   detail::StepReader steps(plan, geometry.mesh, reporter);
+  steps.convert_only(read_entities(run, geometry.mesh));
   bool checked = false;  // the nodal-average remark is decided on the first step with point data
   for (std::size_t k = 0; k < plan.steps.size(); ++k) {
     reporter.progress("load steps", k, plan.steps.size());

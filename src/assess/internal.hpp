@@ -73,6 +73,8 @@ public:
   StepReader(const Plan& plan, const Mesh& geometry, Reporter& reporter);
   StressField read(std::size_t step);
   const std::vector<std::string>& files() const { return files_; }
+  // Convert only these points or cells of every later step (the fields read NaN elsewhere); none = all.
+  void convert_only(StressSubsets only) { only_ = std::move(only); }
 
 private:
   const Mesh& mesh_for(const StepPlan& step);
@@ -81,6 +83,7 @@ private:
   Reporter& reporter_;
   std::map<std::pair<std::string, int>, Mesh> meshes_;
   std::vector<std::string> files_;
+  StressSubsets only_;
 };
 
 // Per-station evaluation (evaluate.cpp).

@@ -65,14 +65,14 @@ bool has_arrays(const Mesh& mesh, const StressSpec& spec) {
 // exactly the geometry's points and cells (see read_vtu_arrays), converted by the same code as read_stress;
 // nullopt when the file is not such a file, and the caller reads it with VTK.
 std::optional<StressField> read_direct(const std::string& file, const StressSpec& spec, const Mesh& geometry,
-                                       StressUnit unit) {
+                                       StressUnit unit, const StressSubsets& only) {
   if (std::filesystem::path(file).extension() != ".vtu") return std::nullopt;
   const auto arrays = read_vtu_arrays(file, stress_names(spec), geometry.grid()->GetNumberOfPoints(),
                                       geometry.grid()->GetNumberOfCells());
   if (!arrays) return std::nullopt;
   std::vector<StressArrayView> views;
   for (const VtuArray& a : *arrays) views.push_back(stress_view(a));
-  return read_stress(file, views, spec, unit);
+  return read_stress(file, views, spec, unit, only);
 }
 
 }  // namespace
@@ -123,7 +123,8 @@ StressField StepReader::read(std::size_t index) {
   if (key != geometry_source(plan_) && (cached == meshes_.end() || !has_arrays(cached->second, step.stress))) {
     const std::string data_file = resolve_series_file(step.file, step.step);
     try {
-      if (std::optional<StressField> direct = read_direct(data_file, step.stress, geometry_, plan_.model.stress_unit)) {
+      if (std::optional<StressField> direct =
+              read_direct(data_file, step.stress, geometry_, plan_.model.stress_unit, only_)) {
         files_.push_back(data_file);
         return std::move(*direct);
       }
@@ -133,7 +134,7 @@ StressField StepReader::read(std::size_t index) {
   }
   const Mesh& mesh = mesh_for(step);  // its errors name the step already
   try {
-    return read_stress(mesh, step.stress, plan_.model.stress_unit);
+    return read_stress(mesh, step.stress, plan_.model.stress_unit, only_);
   } catch (const Error& e) {
     throw Error("load step '" + step.name + "': " + e.what());
   }

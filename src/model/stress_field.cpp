@@ -191,32 +191,61 @@ StressLayout six_component_layout(const std::string& source, const StressSpec& s
               "); declare its component order in the plan, e.g. order = \"xx,yy,zz,xy,yz,xz\"");
 }
 
-// Values of one 6- or 9-component array, converted by `factor`, in internal Voigt order.
-std::vector<double> tensor_values(const std::string& source, const StressSpec& spec, const Found& a, double factor) {
+// The tuples to convert: every one (held = null), or the held ids. Calls visit(tuple, output position).
+template <class Visit>
+void for_each_tuple(vtkIdType n, const EntitySubset* held, Visit&& visit) {
+  if (held == nullptr) {
+    for (vtkIdType i = 0; i < n; ++i) visit(i, static_cast<std::size_t>(i));
+    return;
+  }
+  for (std::size_t s = 0; s < held->ids().size(); ++s) visit(static_cast<vtkIdType>(held->ids()[s]), s);
+}
+
+// The subset of `only` for an array of `tuples` entities at `where`; null (convert all) when none fits.
+const EntitySubset* subset_for(const StressSubsets& only, Association where, vtkIdType tuples) {
+  const EntitySubset* held = where == Association::point ? only.points.get() : only.cells.get();
+  return held != nullptr && held->entities() == static_cast<std::size_t>(tuples) ? held : nullptr;
+}
+
+std::size_t output_tuples(vtkIdType n, const EntitySubset* held) {
+  return held ? held->ids().size() : static_cast<std::size_t>(n);
+}
+
+// Values of one 6- or 9-component array, converted by `factor`, in internal Voigt order (held tuples only).
+std::vector<double> tensor_values(const std::string& source, const StressSpec& spec, const Found& a, double factor,
+                                  const EntitySubset* held) {
   const vtkIdType n = a.tuples;
-  std::vector<double> out(static_cast<std::size_t>(n) * 6);
+  std::vector<double> out(output_tuples(n, held) * 6);
   if (a.comps == 9) {
     // Row-major 3x3: symmetric part, (S_ij + S_ji) / 2.
     with_values(a, [&](auto get) {
-      for (vtkIdType i = 0; i < n; ++i) {
+      for_each_tuple(n, held, [&](vtkIdType i, std::size_t o) {
         for (std::size_t k = 0; k < 6; ++k) {
           const int r = kVoigtIndex[k][0], c = kVoigtIndex[k][1];
           const double sym = 0.5 * (get(i, 3 * r + c) + get(i, 3 * c + r));
-          out[6 * static_cast<std::size_t>(i) + k] = sym * factor;
+          out[6 * o + k] = sym * factor;
         }
-      }
+      });
     });
     return out;
   }
   const StressLayout layout = six_component_layout(source, spec, a);
   with_values(a, [&](auto get) {
-    for (vtkIdType i = 0; i < n; ++i)
-      for (std::size_t k = 0; k < 6; ++k) out[6 * static_cast<std::size_t>(i) + k] = get(i, layout.source[k]) * factor;
+    for_each_tuple(n, held, [&](vtkIdType i, std::size_t o) {
+      for (std::size_t k = 0; k < 6; ++k) out[6 * o + k] = get(i, layout.source[k]) * factor;
+    });
   });
   return out;
 }
 
-StressField from_tensor_array(const std::string& source, const StressSpec& spec, const Finder& find, double factor) {
+StressField make_field(Association where, const EntitySubset* held, const StressSubsets& only,
+                       std::vector<double> values) {
+  if (held == nullptr) return StressField(where, std::move(values));
+  return StressField(where, where == Association::point ? only.points : only.cells, std::move(values));
+}
+
+StressField from_tensor_array(const std::string& source, const StressSpec& spec, const Finder& find, double factor,
+                              const StressSubsets& only) {
   const Found found = find(spec.array);
   const int comps = found.comps;
   if (comps != 6 && comps != 9)
@@ -224,11 +253,12 @@ StressField from_tensor_array(const std::string& source, const StressSpec& spec,
                 " components; a stress array needs 6 (symmetric tensor) or 9 (full 3x3 tensor), or name six "
                 "scalar arrays, one per component");
   check_finite(source, found);
-  return StressField(found.where, tensor_values(source, spec, found, factor));
+  const EntitySubset* held = subset_for(only, found.where, found.tuples);
+  return make_field(found.where, held, only, tensor_values(source, spec, found, factor, held));
 }
 
 StressField from_component_arrays(const std::string& source, const StressSpec& spec, const Finder& find,
-                                  double factor) {
+                                  double factor, const StressSubsets& only) {
   std::array<Found, 6> found;
   for (std::size_t k = 0; k < 6; ++k) {
     if (spec.component_arrays[k].empty())
@@ -244,30 +274,44 @@ StressField from_component_arrays(const std::string& source, const StressSpec& s
     check_finite(source, found[k]);
   }
   const vtkIdType n = found[0].tuples;
-  std::vector<double> out(static_cast<std::size_t>(n) * 6);
+  const EntitySubset* held = subset_for(only, found[0].where, n);
+  std::vector<double> out(output_tuples(n, held) * 6);
   for (std::size_t k = 0; k < 6; ++k)
     with_values(found[k], [&](auto get) {
-      for (vtkIdType i = 0; i < n; ++i) out[6 * static_cast<std::size_t>(i) + k] = get(i, 0) * factor;
+      for_each_tuple(n, held, [&](vtkIdType i, std::size_t o) { out[6 * o + k] = get(i, 0) * factor; });
     });
-  return StressField(found[0].where, std::move(out));
+  return make_field(found[0].where, held, only, std::move(out));
 }
 
-StressField convert(const std::string& source, const StressSpec& spec, const Finder& find, StressUnit unit) {
+StressField convert(const std::string& source, const StressSpec& spec, const Finder& find, StressUnit unit,
+                    const StressSubsets& only) {
   const double factor = mpa_per(unit);
-  return spec.array.empty() ? from_component_arrays(source, spec, find, factor)
-                            : from_tensor_array(source, spec, find, factor);
+  return spec.array.empty() ? from_component_arrays(source, spec, find, factor, only)
+                            : from_tensor_array(source, spec, find, factor, only);
 }
 
 }  // namespace
 
-StressField read_stress(const Mesh& mesh, const StressSpec& spec, StressUnit unit) {
+const std::array<double, 6> StressField::kNotHeld = {NAN, NAN, NAN, NAN, NAN, NAN};
+
+EntitySubset::EntitySubset(std::vector<long long> ids, std::size_t entities) : ids_(std::move(ids)), slot_(entities, -1) {
+  std::sort(ids_.begin(), ids_.end());
+  ids_.erase(std::unique(ids_.begin(), ids_.end()), ids_.end());
+  if (!ids_.empty() && (ids_.front() < 0 || static_cast<std::size_t>(ids_.back()) >= entities))
+    throw Error("entity subset: id " + std::to_string(ids_.front() < 0 ? ids_.front() : ids_.back()) +
+                " is not one of the mesh's " + std::to_string(entities) + " (0 to " + std::to_string(entities) +
+                " - 1); the subset must come from the same mesh");
+  for (std::size_t s = 0; s < ids_.size(); ++s) slot_[static_cast<std::size_t>(ids_[s])] = static_cast<int>(s);
+}
+
+StressField read_stress(const Mesh& mesh, const StressSpec& spec, StressUnit unit, const StressSubsets& only) {
   if (!mesh.grid()) throw Error("read_stress: the mesh is empty; read the model first");
-  return convert(mesh.source(), spec, [&mesh](const std::string& name) { return find_array(mesh, name); }, unit);
+  return convert(mesh.source(), spec, [&mesh](const std::string& name) { return find_array(mesh, name); }, unit, only);
 }
 
 StressField read_stress(const std::string& source, const std::vector<StressArrayView>& arrays, const StressSpec& spec,
-                        StressUnit unit) {
-  return convert(source, spec, [&](const std::string& name) { return find_view(source, arrays, name); }, unit);
+                        StressUnit unit, const StressSubsets& only) {
+  return convert(source, spec, [&](const std::string& name) { return find_view(source, arrays, name); }, unit, only);
 }
 
 }  // namespace toehold

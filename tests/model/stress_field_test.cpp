@@ -12,6 +12,7 @@
 
 #include <cmath>
 #include <limits>
+#include <memory>
 
 namespace toehold {
 namespace {
@@ -195,6 +196,48 @@ TEST(ReadStress, ComponentArraysMustShareAnAssociation) {
   EXPECT_EQ(stress_error(grid, spec),
             "model.vtu: stress component arrays 'a' (point data) and 'd' (cell data) differ; all six must be point "
             "data or all cell data");
+}
+
+// Converting only some points gives exactly the full conversion there and NaN elsewhere, for a tensor array and
+// for six scalar arrays; the checks still cover the whole array [D].
+TEST(ReadStress, SubsetConvertsOnlyItsEntities) {
+  auto grid = tetra();
+  add_six(grid->GetPointData(), 4, "S", {0, 1, 2, 3, 4, 5}, {"XX", "YY", "ZZ", "XY", "YZ", "XZ"}, 1e6);
+  const char* names[6] = {"Sxx", "Syy", "Szz", "Sxy", "Syz", "Sxz"};
+  for (int k = 0; k < 6; ++k) {
+    auto a = vtkSmartPointer<vtkDoubleArray>::New();
+    a->SetName(names[k]);
+    for (vtkIdType p = 0; p < 4; ++p) a->InsertNextValue(1e6 * value(p, k));
+    grid->GetPointData()->AddArray(a);
+  }
+  const Mesh mesh(grid, "t.vtu", LengthUnit::mm);
+  StressSubsets only;
+  only.points = std::make_shared<EntitySubset>(std::vector<long long>{3, 1, 3}, 4);
+  EXPECT_EQ(only.points->ids(), (std::vector<long long>{1, 3}));
+  StressSpec tensor, scalars;
+  tensor.array = "S";
+  scalars.component_arrays = {"Sxx", "Syy", "Szz", "Sxy", "Syz", "Sxz"};
+  for (const StressSpec& spec : {tensor, scalars}) {
+    const StressField all = read_stress(mesh, spec, StressUnit::Pa);
+    const StressField part = read_stress(mesh, spec, StressUnit::Pa, only);
+    EXPECT_TRUE(all.holds_all());
+    EXPECT_FALSE(part.holds_all());
+    ASSERT_EQ(part.size(), 4u);
+    for (std::size_t p = 0; p < 4; ++p)
+      for (int k = 0; k < 6; ++k) {
+        if (p == 1 || p == 3) EXPECT_EQ(part.voigt(p)[k], all.voigt(p)[k]);
+        else EXPECT_TRUE(std::isnan(part.voigt(p)[k]));
+      }
+  }
+  // A subset for another entity count (or the cells, when the stress is point data) is not used.
+  only.points = std::make_shared<EntitySubset>(std::vector<long long>{1}, 5);
+  only.cells = std::make_shared<EntitySubset>(std::vector<long long>{0}, 1);
+  EXPECT_TRUE(read_stress(mesh, tensor, StressUnit::Pa, only).holds_all());
+}
+
+TEST(ReadStress, SubsetIdsMustBeOnTheMesh) {
+  EXPECT_EQ(test::error_of([] { EntitySubset({0, 4}, 4); }),
+            "entity subset: id 4 is not one of the mesh's 4 (0 to 4 - 1); the subset must come from the same mesh");
 }
 
 }  // namespace
