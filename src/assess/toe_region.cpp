@@ -11,12 +11,13 @@
 namespace toehold::detail {
 namespace {
 
-// Above this share of the model's cells the near cells save too little to pay for the copy of their grid.
+// Above this share of the model's cells the near cells save too little to pay for the copy of their grid (our
+// own choice, no source).
 constexpr double kWorthwhileShare = 0.8;
 
 // How far (mm) from its toe line a toe's geometry reaches: the farthest read-out point, the plate thickness (the
 // linearization line and its "model goes on" probe at 1.02 t) and the nominal sample distance, with a quarter
-// more and a quarter of t for the locate and snap tolerances (0.05 t, 0.25 t).
+// more and a quarter of t for the locate and snap tolerances (0.05 t, 0.25 t). Margins of our own, no source.
 double toe_reach(const ToePlan& toe) {
   const ReadoutScheme scheme = toe_scheme(toe, toe.thickness);
   double needed = toe.thickness;
@@ -40,6 +41,7 @@ void add_marker_seeds(const Mesh& mesh, const ToePlan& toe, double reach, std::v
 // Coordinate toes: the polyline (closed when the toe is) sampled at most reach / 2 apart.
 void add_point_seeds(const ToePlan& toe, double reach, std::vector<Seed>& out) {
   const std::size_t n = toe.points.size();
+  if (n < 2) throw Error("toe '" + toe.name + "': fewer than two points");  // placement gives the full message
   const std::size_t segments = toe.closed ? n : n - 1;
   const double spacing = 0.5 * reach;
   for (std::size_t i = 0; i < segments; ++i) {
@@ -50,7 +52,6 @@ void add_point_seeds(const ToePlan& toe, double reach, std::vector<Seed>& out) {
       out.push_back({a + (b - a) * (static_cast<double>(k) / static_cast<double>(std::max(steps, 1LL))),
                      reach + 0.5 * spacing});
   }
-  if (n == 1) out.push_back({toe.points.front(), reach});
 }
 
 }  // namespace

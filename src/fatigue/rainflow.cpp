@@ -1,14 +1,13 @@
 #include "toehold/fatigue/rainflow.hpp"
 
 #include "toehold/common/error.hpp"
+#include "toehold/common/finite.hpp"
 #include "toehold/fatigue/number_text.hpp"
 
 #include <algorithm>
 #include <array>
 #include <cassert>
-#include <bit>
 #include <cmath>
-#include <cstdint>
 #include <utility>
 
 namespace toehold {
@@ -22,23 +21,6 @@ constexpr std::array<std::pair<std::string_view, ResidueRule>, 2> kResidueRules{
 }};
 
 int sign(double x) { return (x > 0.0) - (x < 0.0); }
-
-// Length of the leading run of finite values: blocks are tested without a branch per value, and only a block
-// with a bad value is searched for it.
-std::size_t finite_prefix(std::span<const double> values) {
-  constexpr std::size_t kBlock = 256;
-  constexpr std::uint64_t kExponent = 0x7ff0000000000000u;  // all exponent bits set: inf or nan
-  for (std::size_t begin = 0; begin < values.size(); begin += kBlock) {
-    const std::size_t end = std::min(values.size(), begin + kBlock);
-    std::uint64_t bad = 0;
-    for (std::size_t i = begin; i < end; ++i)
-      bad |= static_cast<std::uint64_t>((std::bit_cast<std::uint64_t>(values[i]) & kExponent) == kExponent);
-    if (bad == 0) continue;
-    for (std::size_t i = begin; i < end; ++i)
-      if (!std::isfinite(values[i])) return i;
-  }
-  return values.size();
-}
 
 StressCycle cycle_between(double a, std::size_t ia, double b, std::size_t ib, double count) {
   return {std::abs(b - a), 0.5 * (a + b), count, ia, ib};
@@ -73,7 +55,7 @@ void RainflowCounter::push(double value) {
 // The finite run is counted by the tight loop; a bad value then throws through push(double), after the values
 // before it have gone in (as pushing them one at a time would).
 void RainflowCounter::push(std::span<const double> values) {
-  const std::size_t good = finite_prefix(values);
+  const std::size_t good = first_non_finite(values.data(), values.size());
   push_finite(values.first(good));
   if (good < values.size()) push(values[good]);
 }

@@ -40,14 +40,8 @@ const double* coordinates(const Mesh& mesh) {
 // Bounding box of the points `ids` of a cell (any integer id type).
 template <class Id>
 Box cell_box(const double* xyz, vtkIdType npts, const Id* ids) {
-  Box b{HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL};
-  for (vtkIdType k = 0; k < npts; ++k) {
-    const double* x = xyz + 3 * static_cast<std::ptrdiff_t>(ids[k]);
-    for (int a = 0; a < 3; ++a) {
-      b[2 * a] = std::min(b[2 * a], x[a]);
-      b[2 * a + 1] = std::max(b[2 * a + 1], x[a]);
-    }
-  }
+  Box b = kEmptyBox;
+  for (vtkIdType k = 0; k < npts; ++k) grow(b, xyz + 3 * static_cast<std::ptrdiff_t>(ids[k]));
   return b;
 }
 

@@ -1,6 +1,7 @@
 #include "toehold/model/stress_field.hpp"
 
 #include "toehold/common/error.hpp"
+#include "toehold/common/finite.hpp"
 #include "toehold/model/stress_layout.hpp"
 
 #include <vtkAOSDataArrayTemplate.h>
@@ -10,9 +11,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <cstdint>
-#include <cstring>
-#include <limits>
 #include <functional>
 #include <optional>
 
@@ -115,53 +113,11 @@ void with_values(const Found& a, Visit&& visit) {
   visit([other](vtkIdType i, int c) { return other->GetComponent(i, c); });
 }
 
-// IEEE 754 binary32/binary64: a value is NaN or infinite exactly when all its exponent bits are set.
-template <class T>
-struct ExponentBits;
-template <>
-struct ExponentBits<float> {
-  using Word = std::uint32_t;
-  static constexpr Word mask = 0x7f800000u;
-};
-template <>
-struct ExponentBits<double> {
-  using Word = std::uint64_t;
-  static constexpr Word mask = 0x7ff0000000000000u;
-};
-
-// True when one of p[begin, end) is NaN or infinite; compares exponent bits, which the compiler vectorizes.
-template <class T>
-bool any_non_finite(const T* p, std::size_t begin, std::size_t end) {
-  using Bits = ExponentBits<T>;
-  static_assert(sizeof(typename Bits::Word) == sizeof(T) && std::numeric_limits<T>::is_iec559);
-  typename Bits::Word bad = 0;
-  for (std::size_t j = begin; j < end; ++j) {
-    typename Bits::Word w;
-    std::memcpy(&w, p + j, sizeof w);
-    bad |= static_cast<typename Bits::Word>((w & Bits::mask) == Bits::mask);
-  }
-  return bad != 0;
-}
-
-// Index of the first non-finite of the n values at p, n when all are finite. Blocks are first checked without a
-// branch per value.
-template <class T>
-std::size_t first_non_finite(const T* p, std::size_t n) {
-  constexpr std::size_t kBlock = 4096;
-  for (std::size_t start = 0; start < n; start += kBlock) {
-    const std::size_t end = std::min(n, start + kBlock);
-    if (!any_non_finite(p, start, end)) continue;
-    for (std::size_t j = start; j < end; ++j)
-      if (!std::isfinite(p[j])) return j;
-  }
-  return n;
-}
-
 // Index (tuple-major, tuple * comps + component) of the array's first non-finite value; tuples * comps if none.
 std::size_t first_non_finite(const Found& a) {
   const std::size_t n = static_cast<std::size_t>(a.tuples) * static_cast<std::size_t>(a.comps);
-  if (a.f32) return first_non_finite(a.f32, n);
-  if (a.f64) return first_non_finite(a.f64, n);
+  if (a.f32) return toehold::first_non_finite(a.f32, n);
+  if (a.f64) return toehold::first_non_finite(a.f64, n);
   std::size_t j = 0;
   for (vtkIdType i = 0; i < a.tuples; ++i)
     for (int c = 0; c < a.comps; ++c, ++j)

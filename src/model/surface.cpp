@@ -315,14 +315,8 @@ std::vector<long long> boundary_faces(vtkUnstructuredGrid* grid, const Templates
 
 // Bounding box of a facet's corners, mm.
 Box facet_box(vtkPoints* points, const Facet& f) {
-  Box b{HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL};
-  for (int k = 0; k < f.corner_count(); ++k) {
-    const Vec3 x = point_of(points, f.points[k]);
-    for (int a = 0; a < 3; ++a) {
-      b[2 * a] = std::min(b[2 * a], x[a]);
-      b[2 * a + 1] = std::max(b[2 * a + 1], x[a]);
-    }
-  }
+  Box b = kEmptyBox;
+  for (int k = 0; k < f.corner_count(); ++k) grow(b, point_of(points, f.points[k]).data());
   return b;
 }
 

@@ -112,14 +112,8 @@ TEST(NearCells, SurfaceKeepsExactlyTheWholeSurfaceFacetsWithinReach) {
     const Surface whole(mesh), part(mesh, &near);
     std::vector<Facet> expected;
     for (const Facet& f : whole.facets()) {
-      Box b{HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL};
-      for (int k = 0; k < f.corner_count(); ++k) {
-        const Vec3 x = whole.point(f.points[k]);
-        for (int a = 0; a < 3; ++a) {
-          b[2 * a] = std::min(b[2 * a], x[a]);
-          b[2 * a + 1] = std::max(b[2 * a + 1], x[a]);
-        }
-      }
+      Box b = kEmptyBox;
+      for (int k = 0; k < f.corner_count(); ++k) grow(b, whole.point(f.points[k]).data());
       if (near.near(b)) expected.push_back(f);
     }
     ASSERT_EQ(part.facets().size(), expected.size()) << test::to_string(cell);

@@ -7,6 +7,9 @@
 #include "toehold/common/tensor.hpp"
 #include "toehold/model/mesh.hpp"
 
+#include <algorithm>
+#include <array>
+#include <cmath>
 #include <vector>
 
 namespace toehold {
@@ -18,6 +21,15 @@ struct Seed {
 
 // An axis-aligned box {xmin, xmax, ymin, ymax, zmin, zmax} in mm, VTK's bounds order.
 using Box = std::array<double, 6>;
+
+// The box that holds nothing yet; grow() widens a box to hold point x (mm).
+constexpr Box kEmptyBox{HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL};
+inline void grow(Box& b, const double* x) {
+  for (int a = 0; a < 3; ++a) {
+    b[2 * a] = std::min(b[2 * a], x[a]);
+    b[2 * a + 1] = std::max(b[2 * a + 1], x[a]);
+  }
+}
 
 class NearCells {
 public:
